@@ -1,0 +1,4 @@
+export * from './common';
+export * from './roles';
+export * from './auth';
+export * from './shops';

@@ -1,0 +1,7 @@
+import { defineConfig } from 'vitest/config';
+import { libAliases } from '../../vitest.shared.ts';
+
+export default defineConfig({
+  resolve: { alias: libAliases },
+  test: { name: 'domain', include: ['src/**/*.test.ts'], environment: 'node' },
+});

@@ -1,0 +1,120 @@
+import { describe, expect, it } from 'vitest';
+import { defineAbilityFor, subjectOf, type Actor, type ShopContext } from './ability';
+
+const shopA = '11111111-1111-4111-8111-111111111111';
+const shopB = '22222222-2222-4222-8222-222222222222';
+const me: Actor = { userId: 'u-me', isPlatformAdmin: false };
+const inShop = (role: ShopContext['role'], extra: Partial<ShopContext> = {}): ShopContext => ({
+  shopId: shopA,
+  role,
+  spendingLimitMinor: null,
+  ...extra,
+});
+
+describe('owner', () => {
+  const ability = defineAbilityFor(me, inShop('owner'));
+  it('manages staff, settings and billing in their own shop', () => {
+    expect(ability.can('manage', subjectOf('Staff', { shopId: shopA }))).toBe(true);
+    expect(ability.can('update', subjectOf('Settings', { shopId: shopA }))).toBe(true);
+    expect(ability.can('manage', subjectOf('Billing', { shopId: shopA }))).toBe(true);
+  });
+  it('has no rights on another shop', () => {
+    expect(ability.can('read', subjectOf('Part', { shopId: shopB }))).toBe(false);
+    expect(ability.can('update', subjectOf('Staff', { shopId: shopB }))).toBe(false);
+  });
+  it('has no platform rights', () => {
+    expect(ability.can('manage', 'Platform')).toBe(false);
+  });
+});
+
+describe('mechanic', () => {
+  const ability = defineAbilityFor(me, inShop('mechanic'));
+  it('reads parts and stock, holds and issues stock', () => {
+    expect(ability.can('read', subjectOf('Part', { shopId: shopA }))).toBe(true);
+    expect(ability.can('hold', subjectOf('Stock', { shopId: shopA }))).toBe(true);
+    expect(ability.can('issue', subjectOf('Stock', { shopId: shopA }))).toBe(true);
+  });
+  it('cannot receive or adjust stock, edit parts or manage staff', () => {
+    expect(ability.can('receive', subjectOf('Stock', { shopId: shopA }))).toBe(false);
+    expect(ability.can('adjust', subjectOf('Stock', { shopId: shopA }))).toBe(false);
+    expect(ability.can('update', subjectOf('Part', { shopId: shopA }))).toBe(false);
+    expect(ability.can('read', subjectOf('Staff', { shopId: shopA }))).toBe(false);
+  });
+  it('updates only jobs assigned to them', () => {
+    expect(ability.can('update', subjectOf('Job', { shopId: shopA, assigneeIds: ['u-other', 'u-me'] }))).toBe(true);
+    expect(ability.can('update', subjectOf('Job', { shopId: shopA, assigneeIds: ['u-other'] }))).toBe(false);
+    expect(ability.can('update', subjectOf('Job', { shopId: shopA, assigneeIds: [] }))).toBe(false);
+  });
+});
+
+describe('buyer', () => {
+  it('sends purchase orders up to the spending limit only', () => {
+    const ability = defineAbilityFor(me, inShop('buyer', { spendingLimitMinor: 50_000 }));
+    expect(ability.can('send', subjectOf('PurchaseOrder', { shopId: shopA, totalMinor: 50_000 }))).toBe(true);
+    expect(ability.can('send', subjectOf('PurchaseOrder', { shopId: shopA, totalMinor: 50_001 }))).toBe(false);
+    expect(ability.can('create', subjectOf('PurchaseOrder', { shopId: shopA, totalMinor: 90_000 }))).toBe(true);
+    expect(ability.can('approve', subjectOf('PurchaseOrder', { shopId: shopA, totalMinor: 10 }))).toBe(false);
+  });
+  it('without a limit set, sends nothing without approval', () => {
+    const ability = defineAbilityFor(me, inShop('buyer'));
+    expect(ability.can('send', subjectOf('PurchaseOrder', { shopId: shopA, totalMinor: 1 }))).toBe(false);
+  });
+  it('receives stock, keeps suppliers, but does not issue stock or manage staff', () => {
+    const ability = defineAbilityFor(me, inShop('buyer'));
+    expect(ability.can('receive', subjectOf('Stock', { shopId: shopA }))).toBe(true);
+    expect(ability.can('create', subjectOf('Supplier', { shopId: shopA }))).toBe(true);
+    expect(ability.can('issue', subjectOf('Stock', { shopId: shopA }))).toBe(false);
+    expect(ability.can('manage', subjectOf('Staff', { shopId: shopA }))).toBe(false);
+  });
+});
+
+describe('viewer', () => {
+  const ability = defineAbilityFor(me, inShop('viewer'));
+  it('reads the working data', () => {
+    for (const s of ['Part', 'Stock', 'Vehicle', 'Job', 'PurchaseOrder'] as const) {
+      expect(ability.can('read', subjectOf(s, { shopId: shopA }))).toBe(true);
+    }
+  });
+  it('changes nothing', () => {
+    expect(ability.can('create', subjectOf('Part', { shopId: shopA }))).toBe(false);
+    expect(ability.can('hold', subjectOf('Stock', { shopId: shopA }))).toBe(false);
+    expect(ability.can('update', subjectOf('Job', { shopId: shopA, assigneeIds: ['u-me'] }))).toBe(false);
+  });
+});
+
+describe('API keys', () => {
+  it('never manage staff, keys, billing or settings even with a buyer role', () => {
+    const ability = defineAbilityFor({ ...me, apiKeyId: 'k1' }, inShop('owner'));
+    expect(ability.can('create', subjectOf('Staff', { shopId: shopA }))).toBe(false);
+    expect(ability.can('create', subjectOf('ApiKey', { shopId: shopA }))).toBe(false);
+    expect(ability.can('update', subjectOf('Settings', { shopId: shopA }))).toBe(false);
+    expect(ability.can('manage', subjectOf('Billing', { shopId: shopA }))).toBe(false);
+  });
+});
+
+describe('read-only shop', () => {
+  const ability = defineAbilityFor(me, inShop('owner', { writable: false }));
+  it('refuses every write, with the reason', () => {
+    expect(ability.can('create', subjectOf('Part', { shopId: shopA }))).toBe(false);
+    expect(ability.can('update', subjectOf('Staff', { shopId: shopA }))).toBe(false);
+    expect(ability.relevantRuleFor('create', subjectOf('Part', { shopId: shopA }))?.reason).toMatch(/read-only/);
+  });
+  it('still reads and exports', () => {
+    expect(ability.can('read', subjectOf('Part', { shopId: shopA }))).toBe(true);
+    expect(ability.can('export', subjectOf('ShopExport', { shopId: shopA }))).toBe(true);
+  });
+});
+
+describe('platform admin', () => {
+  it('manages the platform but sees no shop data without a membership or grant', () => {
+    const ability = defineAbilityFor({ userId: 'admin', isPlatformAdmin: true }, null);
+    expect(ability.can('manage', 'Platform')).toBe(true);
+    expect(ability.can('read', subjectOf('Part', { shopId: shopA }))).toBe(false);
+  });
+  it('under a support grant reads shop data but never touches staff or billing', () => {
+    const ability = defineAbilityFor({ userId: 'admin', isPlatformAdmin: true }, inShop('owner', { viaSupportGrant: true }));
+    expect(ability.can('read', subjectOf('Part', { shopId: shopA }))).toBe(true);
+    expect(ability.can('create', subjectOf('Staff', { shopId: shopA }))).toBe(false);
+    expect(ability.can('manage', subjectOf('Billing', { shopId: shopA }))).toBe(false);
+  });
+});

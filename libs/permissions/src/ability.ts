@@ -1,0 +1,157 @@
+import { AbilityBuilder, createMongoAbility, type MongoAbility, subject as asSubject } from '@casl/ability';
+import type { ShopRole } from '@tappet/contracts';
+
+/**
+ * Actions. The CRUD four plus the trade's own verbs, so a rule can say "a mechanic may issue
+ * stock" without also letting them adjust it.
+ */
+export const actions = [
+  'manage',
+  'read',
+  'create',
+  'update',
+  'delete',
+  'import',
+  'export',
+  'hold',
+  'issue',
+  'receive',
+  'adjust',
+  'move',
+  'count',
+  'approve',
+  'send',
+  'signOff',
+] as const;
+export type Action = (typeof actions)[number];
+
+/** Subjects: one per kind of record a rule can be about. */
+export const subjects = [
+  'Shop',
+  'Settings',
+  'Staff',
+  'ApiKey',
+  'AuditLog',
+  'Billing',
+  'ShopExport',
+  'Part',
+  'Stock',
+  'Bin',
+  'Supplier',
+  'PurchaseOrder',
+  'Vehicle',
+  'Job',
+  'Customer',
+  'Invoice',
+  'Platform',
+  'SupportAccess',
+] as const;
+export type SubjectName = (typeof subjects)[number];
+
+/** Everything that lives inside one shop (all subjects but the platform itself). */
+export const shopSubjects: SubjectName[] = subjects.filter((s) => s !== 'Platform');
+
+/** A record as CASL sees it: its type name plus the attributes rules look at. */
+export interface SubjectRecord {
+  shopId?: string;
+  assigneeIds?: string[];
+  totalMinor?: number;
+  userId?: string;
+  [key: string]: unknown;
+}
+
+export type AppAbility = MongoAbility<[Action, SubjectName | 'all' | ({ __caslSubjectType__: SubjectName } & SubjectRecord)]>;
+
+/** Who is acting: a signed-in person, or an API key acting with a role. */
+export interface Actor {
+  userId: string;
+  isPlatformAdmin: boolean;
+  /** Set when the request is authenticated by an API key instead of a session. */
+  apiKeyId?: string | null;
+}
+
+/** The actor's standing in the shop the request is about. */
+export interface ShopContext {
+  shopId: string;
+  role: ShopRole;
+  /** Purchase orders up to this total (minor units) may be sent without approval; null = none set. */
+  spendingLimitMinor: number | null;
+  /** False when the shop is suspended or cancelled: everything becomes read-only but the export. */
+  writable?: boolean;
+  /** True while a platform admin acts under a support-access grant. */
+  viaSupportGrant?: boolean;
+}
+
+/** Actions that change data; a read-only shop refuses them all. */
+// 'manage' is CASL's wildcard for every action, so it is left out here on purpose.
+export const writeActions: Action[] = actions.filter((a) => a !== 'read' && a !== 'export' && a !== 'manage');
+
+/** API keys can hold at most these roles. */
+export const apiKeyRoles: ShopRole[] = ['viewer', 'buyer'];
+
+/**
+ * Builds the ability of one actor in one shop (or on the platform when `shop` is null).
+ * This is the only definition of who may do what: the API enforces it and the web app hides
+ * what it refuses.
+ */
+export function defineAbilityFor(actor: Actor, shop: ShopContext | null): AppAbility {
+  const { can, cannot, build } = new AbilityBuilder<AppAbility>(createMongoAbility);
+
+  if (actor.isPlatformAdmin && !actor.apiKeyId) {
+    can('manage', 'Platform');
+  }
+
+  if (shop) {
+    const own = { shopId: shop.shopId };
+    // Everyone in the shop reads the shop's working data.
+    for (const s of ['Shop', 'Part', 'Stock', 'Bin', 'Supplier', 'PurchaseOrder', 'Vehicle', 'Job', 'Customer', 'Invoice'] as const) {
+      can('read', s, own);
+    }
+
+    switch (shop.role) {
+      case 'owner':
+        can('manage', shopSubjects, own);
+        break;
+      case 'mechanic':
+        can('hold', 'Stock', own);
+        can('issue', 'Stock', own);
+        can('update', 'Vehicle', own);
+        can('create', 'Vehicle', own);
+        // Jobs: only those the mechanic is assigned to.
+        can(['update', 'hold', 'issue'], 'Job', { ...own, assigneeIds: actor.userId });
+        break;
+      case 'buyer':
+        can(['create', 'update', 'import'], 'Part', own);
+        can(['create', 'update', 'delete', 'import'], 'Supplier', own);
+        can(['receive', 'move'], 'Stock', own);
+        can(['create', 'update'], 'Bin', own);
+        can(['create', 'update'], 'PurchaseOrder', own);
+        // Sending an order within the limit needs no approval; above it goes to the owner.
+        if (shop.spendingLimitMinor !== null) {
+          can('send', 'PurchaseOrder', { ...own, totalMinor: { $lte: shop.spendingLimitMinor } });
+        }
+        break;
+      case 'viewer':
+        break;
+    }
+
+    if (actor.apiKeyId) {
+      // Keys never administer the shop, whatever role they carry.
+      cannot('manage', ['Staff', 'ApiKey', 'Billing', 'Settings', 'SupportAccess', 'AuditLog', 'ShopExport']);
+    }
+    if (shop.viaSupportGrant) {
+      // Support helps; it does not change who runs the shop or how it pays.
+      cannot('manage', ['Staff', 'ApiKey', 'Billing', 'SupportAccess']);
+    }
+    if (shop.writable === false) {
+      cannot(writeActions, 'all').because('This shop is read-only while its subscription is suspended or cancelled.');
+    }
+  }
+
+  return build();
+}
+
+/** Tags a plain record with its subject type so conditions apply to it. */
+export function subjectOf<T extends SubjectRecord>(type: SubjectName, record: T) {
+  return asSubject(type, { ...record });
+}

@@ -1,0 +1,2 @@
+export * from './ability';
+export * from './role-table';
