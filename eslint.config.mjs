@@ -46,6 +46,12 @@ export default tseslint.config(
     },
   },
   {
+    // Build and test configuration files sit in a project's folder but belong to the workspace:
+    // they read the shared alias list at the root.
+    files: ['**/vite.config.ts', '**/vitest.config.ts', '**/playwright.config.ts'],
+    rules: { '@nx/enforce-module-boundaries': 'off' },
+  },
+  {
     files: ['apps/web/**/*.tsx', 'apps/web/**/*.ts', 'libs/ui/**/*.tsx', 'libs/ui/**/*.ts'],
     plugins: { 'react-hooks': reactHooks },
     rules: { ...reactHooks.configs.recommended.rules },

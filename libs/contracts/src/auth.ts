@@ -47,5 +47,9 @@ export const meResponseSchema = z.object({
 });
 export type MeResponse = z.infer<typeof meResponseSchema>;
 
+/** The me payload plus the session's active shop (the one `/` opens). */
+export const meWithActiveShopSchema = meResponseSchema.extend({ activeShopId: idSchema.nullable() });
+export type MeWithActiveShop = z.infer<typeof meWithActiveShopSchema>;
+
 export const okResponseSchema = z.object({ ok: z.literal(true) });
 export type OkResponse = z.infer<typeof okResponseSchema>;

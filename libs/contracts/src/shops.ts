@@ -18,3 +18,16 @@ export const shopDetailSchema = z.object({
 export type ShopDetail = z.infer<typeof shopDetailSchema>;
 
 export const healthResponseSchema = z.object({ status: z.literal('ok') });
+
+export const updateShopRequestSchema = z
+  .object({
+    name: z.string().trim().min(2, 'Use at least 2 characters.').max(120, 'Use at most 120 characters.'),
+  })
+  .strict();
+export type UpdateShopRequest = z.infer<typeof updateShopRequestSchema>;
+
+export const shopListResponseSchema = z.object({ shops: z.array(shopSummarySchema) });
+export type ShopListResponse = z.infer<typeof shopListResponseSchema>;
+
+export const setActiveShopRequestSchema = z.object({ shopId: idSchema }).strict();
+export type SetActiveShopRequest = z.infer<typeof setActiveShopRequestSchema>;

@@ -1,4 +1,4 @@
-import { AbilityBuilder, createMongoAbility, type MongoAbility, subject as asSubject } from '@casl/ability';
+import { AbilityBuilder, createMongoAbility, type ForcedSubject, type MongoAbility, type MongoQuery, subject as asSubject } from '@casl/ability';
 import type { ShopRole } from '@tappet/contracts';
 
 /**
@@ -60,7 +60,10 @@ export interface SubjectRecord {
   [key: string]: unknown;
 }
 
-export type AppAbility = MongoAbility<[Action, SubjectName | 'all' | ({ __caslSubjectType__: SubjectName } & SubjectRecord)]>;
+/** A record tagged with its subject type (see `subjectOf`). */
+export type TaggedSubject = ForcedSubject<SubjectName> & SubjectRecord;
+
+export type AppAbility = MongoAbility<[Action, SubjectName | 'all' | TaggedSubject]>;
 
 /** Who is acting: a signed-in person, or an API key acting with a role. */
 export interface Actor {
@@ -118,7 +121,7 @@ export function defineAbilityFor(actor: Actor, shop: ShopContext | null): AppAbi
         can('update', 'Vehicle', own);
         can('create', 'Vehicle', own);
         // Jobs: only those the mechanic is assigned to.
-        can(['update', 'hold', 'issue'], 'Job', { ...own, assigneeIds: actor.userId });
+        can(['update', 'hold', 'issue'], 'Job', where({ ...own, assigneeIds: actor.userId }));
         break;
       case 'buyer':
         can(['create', 'update', 'import'], 'Part', own);
@@ -128,7 +131,7 @@ export function defineAbilityFor(actor: Actor, shop: ShopContext | null): AppAbi
         can(['create', 'update'], 'PurchaseOrder', own);
         // Sending an order within the limit needs no approval; above it goes to the owner.
         if (shop.spendingLimitMinor !== null) {
-          can('send', 'PurchaseOrder', { ...own, totalMinor: { $lte: shop.spendingLimitMinor } });
+          can('send', 'PurchaseOrder', where({ ...own, totalMinor: { $lte: shop.spendingLimitMinor } }));
         }
         break;
       case 'viewer':
@@ -151,7 +154,15 @@ export function defineAbilityFor(actor: Actor, shop: ShopContext | null): AppAbi
   return build();
 }
 
+/**
+ * Conditions on record attributes. Our subjects are named by string, so CASL cannot type their
+ * fields; the attribute names are checked by the tests instead.
+ */
+function where(conditions: Record<string, unknown>): MongoQuery<never> {
+  return conditions as MongoQuery<never>;
+}
+
 /** Tags a plain record with its subject type so conditions apply to it. */
-export function subjectOf<T extends SubjectRecord>(type: SubjectName, record: T) {
-  return asSubject(type, { ...record });
+export function subjectOf(type: SubjectName, record: SubjectRecord): TaggedSubject {
+  return asSubject(type, { ...record }) as TaggedSubject;
 }

@@ -1,0 +1,52 @@
+import { DataSource } from 'typeorm';
+import { UserEntity } from '../modules/users/users.entity';
+import { MembershipEntity, ShopEntity } from '../modules/shops/shops.entity';
+import { PasswordResetTokenEntity, SessionEntity } from '../modules/auth/auth.entity';
+import { AuditEventEntity } from '../modules/audit/audit.entity';
+import { InitialSchema1764633600000 } from './migrations/1764633600000-initial-schema';
+
+/** The few better-sqlite3 methods we call (the package ships no type declarations). */
+export interface SqliteHandle {
+  pragma(source: string, options?: { simple?: boolean }): unknown;
+  backup(destination: string): Promise<unknown>;
+  exec(sql: string): unknown;
+}
+
+/** Every entity schema the app knows. */
+export const entities = [UserEntity, ShopEntity, MembershipEntity, SessionEntity, PasswordResetTokenEntity, AuditEventEntity];
+
+/** Committed migrations, in order. Passed as classes: globs do not survive bundling or tsx. */
+export const migrations = [InitialSchema1764633600000];
+
+/**
+ * Pragmas set on every connection. Set here rather than through `enableWAL` so that
+ * `synchronous` is the same on first boot and on restarts (platform-notes.md trap 3).
+ */
+export function prepareSqlite(db: SqliteHandle): void {
+  db.pragma('journal_mode = WAL');
+  db.pragma('synchronous = NORMAL');
+  db.pragma('temp_store = MEMORY');
+  db.pragma('foreign_keys = ON');
+  db.pragma('busy_timeout = 5000');
+}
+
+/** Creates (does not initialise) the TypeORM data source for one SQLite file. */
+export function createDataSource(databasePath: string): DataSource {
+  return new DataSource({
+    type: 'better-sqlite3',
+    database: databasePath,
+    entities,
+    migrations,
+    migrationsRun: false,
+    migrationsTransactionMode: 'each',
+    synchronize: false,
+    logging: false,
+    timeout: 5000,
+    prepareDatabase: prepareSqlite,
+  });
+}
+
+/** The raw better-sqlite3 handle behind a data source (for backups and pragmas). */
+export function sqliteHandle(dataSource: DataSource): SqliteHandle {
+  return (dataSource.driver as unknown as { databaseConnection: SqliteHandle }).databaseConnection;
+}

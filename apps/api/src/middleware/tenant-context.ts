@@ -1,0 +1,58 @@
+import type { Request, RequestHandler } from 'express';
+import { defineAbilityFor, subjectOf, type Action, type SubjectName, type SubjectRecord } from '@tappet/permissions';
+import { idSchema } from '@tappet/contracts';
+import { shopScoped } from '../db/tenant-repository';
+import type { Database } from '../db/write-lock';
+import { HttpError, forbidden, notFound } from '../lib/http-error';
+import { MembershipEntity, ShopEntity, readOnlyBillingStates } from '../modules/shops/shops.entity';
+import { authOf } from './authenticate';
+
+const noSuchShop = () => notFound('No such shop.');
+
+/**
+ * For /api/shops/:shopId and everything below it: loads the caller's active membership of the
+ * shop and builds `req.shop`, `req.membership` and `req.ability`. Anyone who is not a member gets
+ * 404 (platform admins too: they see no shop data without a support grant).
+ */
+export function tenantContext(db: Database): RequestHandler {
+  return async (req, _res, next) => {
+    const auth = authOf(req);
+    const parsed = idSchema.safeParse(req.params['shopId']);
+    if (!parsed.success) throw noSuchShop();
+    const shopId = parsed.data;
+    const membership = await shopScoped(db.reader, MembershipEntity, shopId).findOne({ userId: auth.user.id, isActive: true });
+    if (!membership) throw noSuchShop();
+    const shop = await db.reader.findOne(ShopEntity, { where: { id: shopId } });
+    if (!shop) throw noSuchShop();
+    req.shop = shop;
+    req.membership = membership;
+    req.ability = defineAbilityFor(
+      { userId: auth.user.id, isPlatformAdmin: auth.user.isPlatformAdmin, apiKeyId: null },
+      { shopId, role: membership.role, spendingLimitMinor: membership.spendingLimitMinor, writable: !readOnlyBillingStates.includes(shop.billingState) },
+    );
+    next();
+  };
+}
+
+/** The shop of a request that passed `tenantContext`. */
+export function shopOf(req: Request) {
+  if (!req.shop || !req.membership || !req.ability) throw new HttpError(500, 'internal', 'Tenant context missing.');
+  return { shop: req.shop, membership: req.membership, ability: req.ability };
+}
+
+/**
+ * Throws 403 `forbidden` unless the request's ability allows `action` on the record. The record is
+ * tagged with its subject type and the current shop unless it says otherwise.
+ */
+export function authorize(req: Request, action: Action, type: SubjectName, record: SubjectRecord = {}): void {
+  const { shop, ability } = shopOf(req);
+  const subject = subjectOf(type, { shopId: shop.id, ...record });
+  if (ability.can(action, subject)) return;
+  const reason = ability.relevantRuleFor(action, subject)?.reason;
+  throw forbidden(reason ?? `Your role in this shop does not allow you to ${action} ${describe(type)}.`);
+}
+
+function describe(type: SubjectName): string {
+  const words = type.replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase();
+  return type === 'Shop' ? 'this shop' : words;
+}

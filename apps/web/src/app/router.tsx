@@ -1,0 +1,72 @@
+import type { QueryClient } from '@tanstack/react-query';
+import type { ComponentType } from 'react';
+import { createBrowserRouter, redirect, type LoaderFunction, type RouteObject } from 'react-router-dom';
+
+type RouterFactory = (routes: RouteObject[]) => ReturnType<typeof createBrowserRouter>;
+import { paths } from '../config/paths';
+import { homeHref, meQueryOptions } from '../lib/auth';
+import { RootErrorBoundary, RootFallback, RootLayout } from './routes/root';
+
+/** What a lazily loaded route module may export. */
+export interface RouteModule {
+  default: ComponentType;
+  /** Given the QueryClient, returns the route's loader (it prefetches or redirects). */
+  clientLoader?: (queryClient: QueryClient) => LoaderFunction;
+  ErrorBoundary?: ComponentType;
+}
+
+/** Turns a route module into what React Router's `lazy` expects, wiring in the QueryClient. */
+function load(queryClient: QueryClient, importer: () => Promise<RouteModule>) {
+  return async () => {
+    const { default: Component, clientLoader, ErrorBoundary } = await importer();
+    return { Component, loader: clientLoader?.(queryClient), ...(ErrorBoundary ? { ErrorBoundary } : {}) };
+  };
+}
+
+/**
+ * The route table. Every screen is split into its own chunk and loaded when first visited, so
+ * the first load carries only the frame. Tests pass a memory router factory.
+ */
+export function createAppRouter(queryClient: QueryClient, createRouter: RouterFactory = createBrowserRouter) {
+  const routes: RouteObject[] = [
+    {
+      id: 'root',
+      Component: RootLayout,
+      ErrorBoundary: RootErrorBoundary,
+      HydrateFallback: RootFallback,
+      children: [
+        {
+          index: true,
+          // Never shown for long: the loader always redirects.
+          Component: RootFallback,
+          loader: async () => {
+            const me = await queryClient.ensureQueryData(meQueryOptions());
+            return redirect(me ? homeHref(me) : paths.auth.signIn.getHref());
+          },
+        },
+        { path: paths.auth.signIn.path, lazy: load(queryClient, () => import('./routes/auth/sign-in')) },
+        { path: paths.auth.forgotPassword.path, lazy: load(queryClient, () => import('./routes/auth/forgot-password')) },
+        { path: paths.auth.resetPassword.path, lazy: load(queryClient, () => import('./routes/auth/reset-password')) },
+        {
+          id: 'app',
+          lazy: load(queryClient, () => import('./routes/app/layout')),
+          children: [
+            {
+              path: paths.shop.home.path,
+              lazy: load(queryClient, () => import('./routes/app/shop/layout')),
+              children: [
+                { index: true, lazy: load(queryClient, () => import('./routes/app/shop/home')) },
+                { path: 'shop', lazy: load(queryClient, () => import('./routes/app/shop/settings')) },
+              ],
+            },
+            { path: paths.platform.path, lazy: load(queryClient, () => import('./routes/app/platform')) },
+            { path: paths.noShop.path, lazy: load(queryClient, () => import('./routes/app/no-shop')) },
+            { path: paths.apiDocs.path, lazy: load(queryClient, () => import('./routes/app/api-docs')) },
+          ],
+        },
+        { path: '*', lazy: load(queryClient, () => import('./routes/not-found')) },
+      ],
+    },
+  ];
+  return createRouter(routes);
+}

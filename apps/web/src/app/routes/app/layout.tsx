@@ -1,0 +1,88 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { IconBraces, IconHome, IconPlatform, IconShop, ThemeMenu, useToast } from '@tappet/ui';
+import { useState } from 'react';
+import { Navigate, Outlet, redirect, useLocation, useMatch, useNavigate, type LoaderFunctionArgs } from 'react-router-dom';
+import { AppShell, type NavItem } from '../../../components/layouts/app-shell';
+import { paths } from '../../../config/paths';
+import { useSignOut } from '../../../features/auth/api/sign-out';
+import { ShopSwitcher } from '../../../features/shops/components/shop-switcher';
+import { abilityFor, canOn, ShopAbilityProvider } from '../../../lib/ability';
+import { errorMessage } from '../../../lib/api-client';
+import { defaultShopId, meQueryOptions, useMe, type Me } from '../../../lib/auth';
+
+/** Everything under this layout needs a session; without one, sign in and come back. */
+export const clientLoader =
+  (queryClient: QueryClient) =>
+  async ({ request }: LoaderFunctionArgs) => {
+    const me = await queryClient.ensureQueryData(meQueryOptions());
+    if (!me) {
+      const url = new URL(request.url);
+      throw redirect(paths.auth.signIn.getHref(url.pathname + url.search));
+    }
+    return null;
+  };
+
+/** The rail's entries: only screens that exist and that this person may use. */
+function navFor(me: Me, shopId: string | null): NavItem[] {
+  const items: NavItem[] = [];
+  if (shopId) {
+    items.push({ to: paths.shop.home.getHref(shopId), label: 'Home', icon: <IconHome />, end: true });
+    if (canOn(abilityFor(me, shopId), 'update', 'Shop', { shopId })) {
+      items.push({ to: paths.shop.settings.getHref(shopId), label: 'Shop', icon: <IconShop /> });
+    }
+    if (me.user.isPlatformAdmin) items.push({ to: paths.platform.getHref(), label: 'Platform', icon: <IconPlatform /> });
+  } else if (me.user.isPlatformAdmin) {
+    items.push({ to: paths.platform.getHref(), label: 'Home', icon: <IconHome /> });
+  } else {
+    items.push({ to: paths.noShop.getHref(), label: 'Home', icon: <IconHome /> });
+  }
+  items.push({ to: paths.apiDocs.getHref(), label: 'API documentation', icon: <IconBraces /> });
+  return items;
+}
+
+export default function AppLayoutRoute() {
+  const me = useMe();
+  const location = useLocation();
+  const navigate = useNavigate();
+  const toast = useToast();
+  const signOut = useSignOut();
+  const [signingOut, setSigningOut] = useState(false);
+  const match = useMatch({ path: paths.shop.home.path, end: false });
+
+  if (!me) {
+    // Signed out here, or the session ended (a 401 anywhere clears "me").
+    const target = signingOut ? paths.auth.signIn.getHref() : paths.auth.signIn.getHref(location.pathname + location.search);
+    return <Navigate to={target} replace />;
+  }
+
+  const urlShopId = match?.params.shopId ?? null;
+  // On a shop URL the URL decides; elsewhere (API docs, platform) the session's active shop does.
+  const shopId = urlShopId ? (me.memberships.some((m) => m.shopId === urlShopId) ? urlShopId : null) : defaultShopId(me);
+  const nav = navFor(me, shopId);
+  const home = nav[0]?.to ?? '/';
+
+  return (
+    <ShopAbilityProvider me={me} shopId={shopId}>
+      <AppShell
+        homeHref={home}
+        nav={nav}
+        context={<ShopSwitcher me={me} currentShopId={shopId} />}
+        userName={me.user.name}
+        signingOut={signOut.isPending}
+        onSignOut={() => {
+          setSigningOut(true);
+          signOut.mutate(undefined, {
+            onSuccess: () => navigate(paths.auth.signIn.getHref(), { replace: true }),
+            onError: (error) => {
+              toast.show(errorMessage(error), 'fail');
+              navigate(paths.auth.signIn.getHref(), { replace: true });
+            },
+          });
+        }}
+        railFooter={<ThemeMenu />}
+      >
+        <Outlet />
+      </AppShell>
+    </ShopAbilityProvider>
+  );
+}

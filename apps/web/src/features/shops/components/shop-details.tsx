@@ -1,0 +1,26 @@
+import type { ShopDetail } from '@tappet/contracts';
+import { PartNumber } from '@tappet/ui';
+
+const dateFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'long' });
+
+/** The shop's record as the API has it. */
+export function ShopDetails({ shop }: { shop: ShopDetail }) {
+  return (
+    <dl className="grid grid-cols-1 gap-x-6 gap-y-3 sm:grid-cols-[max-content_1fr]">
+      <dt className="font-bold">Name</dt>
+      <dd>{shop.name}</dd>
+      <dt className="font-bold">Short name</dt>
+      <dd>
+        <PartNumber>{shop.slug}</PartNumber>
+      </dd>
+      <dt className="font-bold">On Tappet since</dt>
+      <dd>
+        <time dateTime={shop.createdAt}>{dateFormat.format(new Date(shop.createdAt))}</time>
+      </dd>
+      <dt className="font-bold">Shop id (for the API)</dt>
+      <dd>
+        <PartNumber className="text-base break-all whitespace-normal">{shop.id}</PartNumber>
+      </dd>
+    </dl>
+  );
+}

@@ -1,0 +1,116 @@
+import { errorBodySchema } from '@tappet/contracts';
+import type { z } from 'zod';
+import { env } from '../config/env';
+
+/** A failed API call, in the API's own terms: HTTP status, error code, message and field errors. */
+export class ApiError extends Error {
+  override readonly name = 'ApiError';
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    /** Field path ("email", "lines.0.qty") → message, from a validation error's details. */
+    readonly fieldErrors: Record<string, string> = {},
+    readonly details?: unknown,
+  ) {
+    super(message);
+  }
+}
+
+const fallbackMessages: Record<number, string> = {
+  400: 'The request was not accepted. Check what you entered.',
+  401: 'Your session has ended. Sign in again.',
+  403: 'You do not have permission to do this.',
+  404: 'This was not found. It may have been removed, or the link is wrong.',
+  409: 'Someone changed this at the same time. Reload and try again.',
+  413: 'That is too large to send.',
+  429: 'Too many attempts. Wait a little and try again.',
+};
+
+/** Turns validation details (`[{ path, message }]`, path as string or array) into a field map. */
+export function fieldErrorsFrom(details: unknown): Record<string, string> {
+  const out: Record<string, string> = {};
+  if (!Array.isArray(details)) return out;
+  for (const item of details) {
+    if (!item || typeof item !== 'object') continue;
+    const { path, message } = item as { path?: unknown; message?: unknown };
+    if (typeof message !== 'string') continue;
+    const key = Array.isArray(path) ? path.map(String).join('.') : typeof path === 'string' ? path : '';
+    // Keep the first message per field: it is the one to fix first.
+    if (key && !(key in out)) out[key] = message;
+  }
+  return out;
+}
+
+/** Builds an ApiError from a failed response, whatever its body. */
+export async function errorFromResponse(response: Response): Promise<ApiError> {
+  let body: unknown = null;
+  try {
+    body = await response.json();
+  } catch {
+    // Not JSON (a proxy's HTML page, an empty body): fall back to the status.
+  }
+  const parsed = errorBodySchema.safeParse(body);
+  const fallback = fallbackMessages[response.status] ?? 'Something went wrong on our side. Try again in a moment.';
+  if (!parsed.success) return new ApiError(response.status, response.status >= 500 ? 'internal' : 'unknown', fallback);
+  const { code, message, details } = parsed.data.error;
+  return new ApiError(response.status, code, message || fallback, fieldErrorsFrom(details), details);
+}
+
+export interface RequestOptions<T> {
+  method?: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
+  body?: unknown;
+  signal?: AbortSignal;
+  /** Checks the response body; a mismatch is reported as an error instead of a wrong screen. */
+  schema?: z.ZodType<T>;
+}
+
+/**
+ * Calls the API at `env.apiBaseUrl + path`. Sends the session cookie (same origin only), and on
+ * every request that changes something the `X-CSRF: 1` header and a JSON content type the API
+ * requires against cross-site request forgery. Throws ApiError on any failure.
+ */
+export async function apiRequest<T = unknown>(path: string, options: RequestOptions<T> = {}): Promise<T> {
+  const method = options.method ?? 'GET';
+  const headers: Record<string, string> = { Accept: 'application/json' };
+  let body: string | undefined;
+  if (method !== 'GET') {
+    headers['X-CSRF'] = '1';
+    headers['Content-Type'] = 'application/json';
+    body = JSON.stringify(options.body ?? {});
+  }
+
+  let response: Response;
+  try {
+    response = await fetch(`${env.apiBaseUrl}${path}`, { method, headers, body, credentials: 'same-origin', signal: options.signal });
+  } catch (error) {
+    if (error instanceof DOMException && error.name === 'AbortError') throw error;
+    throw new ApiError(0, 'network', 'Tappet cannot be reached. Check the connection and try again.');
+  }
+
+  if (!response.ok) throw await errorFromResponse(response);
+  if (response.status === 204) return undefined as T;
+
+  const text = await response.text();
+  const data: unknown = text ? JSON.parse(text) : undefined;
+  if (!options.schema) return data as T;
+  const checked = options.schema.safeParse(data);
+  if (!checked.success) throw new ApiError(response.status, 'unexpected_response', 'Tappet answered in a way this page does not understand. Reload the page.');
+  return checked.data;
+}
+
+/** Shorthands for the HTTP methods. */
+export const api = {
+  get: <T>(path: string, options: Omit<RequestOptions<T>, 'method' | 'body'> = {}) => apiRequest<T>(path, { ...options, method: 'GET' }),
+  post: <T>(path: string, body?: unknown, options: Omit<RequestOptions<T>, 'method' | 'body'> = {}) =>
+    apiRequest<T>(path, { ...options, method: 'POST', body }),
+  patch: <T>(path: string, body?: unknown, options: Omit<RequestOptions<T>, 'method' | 'body'> = {}) =>
+    apiRequest<T>(path, { ...options, method: 'PATCH', body }),
+  delete: <T>(path: string, options: Omit<RequestOptions<T>, 'method' | 'body'> = {}) => apiRequest<T>(path, { ...options, method: 'DELETE' }),
+};
+
+/** A message for any error a query or mutation can throw. */
+export function errorMessage(error: unknown): string {
+  if (error instanceof ApiError) return error.message;
+  return 'Something went wrong. Try again, and reload the page if it keeps happening.';
+}

@@ -1,0 +1,43 @@
+import { idSchema, meResponseSchema } from '@tappet/contracts';
+import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
+import type { z } from 'zod';
+import { ApiError, api } from './api-client';
+
+/** /api/me: the person, their memberships and the session's active shop (when the API says). */
+export const meSchema = meResponseSchema.extend({ activeShopId: idSchema.nullable().optional() });
+export type Me = z.infer<typeof meSchema>;
+export type MembershipView = Me['memberships'][number];
+
+export const meQueryKey = ['me'] as const;
+
+/** Who is signed in, or null when nobody is (401). */
+export async function getMe(): Promise<Me | null> {
+  try {
+    return await api.get('/me', { schema: meSchema });
+  } catch (error) {
+    if (error instanceof ApiError && error.status === 401) return null;
+    throw error;
+  }
+}
+
+export function meQueryOptions() {
+  return queryOptions({ queryKey: meQueryKey, queryFn: getMe, staleTime: 60_000 });
+}
+
+/** The me payload; inside the signed-in part of the app it has been loaded by the route. */
+export function useMe(): Me | null {
+  return useSuspenseQuery(meQueryOptions()).data;
+}
+
+/** The shop the person is working in when the URL does not name one. */
+export function defaultShopId(me: Me): string | null {
+  if (me.activeShopId && me.memberships.some((m) => m.shopId === me.activeShopId)) return me.activeShopId;
+  return me.memberships[0]?.shopId ?? null;
+}
+
+/** Where a signed-in person starts: their shop's home, the platform page, or the no-shop page. */
+export function homeHref(me: Me): string {
+  const shopId = defaultShopId(me);
+  if (shopId) return `/shops/${encodeURIComponent(shopId)}`;
+  return me.user.isPlatformAdmin ? '/platform' : '/welcome';
+}

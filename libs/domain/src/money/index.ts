@@ -1,0 +1,15 @@
+export {
+  divideRoundHalfEven,
+  formatMinorUnits,
+  formatMoney,
+  minorUnitExponent,
+  MoneyFormatError,
+  multiplyMinorUnits,
+  parseDecimal,
+  parseMinorUnits,
+  rescale,
+  sumMinorUnits,
+  toSafeMinorUnits,
+  type ExactDecimal,
+  type MoneyFormatReason,
+} from './money';

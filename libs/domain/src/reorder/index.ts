@@ -1,0 +1,13 @@
+export { demandStats, type DemandStats } from './demand-stats';
+export { annualInventoryCost, eoq, type EoqInput } from './eoq';
+export { inverseNormalCdf, normalCdf, zForServiceLevel } from './normal';
+export { roundToPacks, type PackedQuantity, type PackRule } from './packs';
+export {
+  leadTimeDemand,
+  reorderPoint,
+  safetyStock,
+  zOf,
+  type LeadTimeDemand,
+  type LeadTimeDemandModel,
+  type ServiceTarget,
+} from './reorder-point';

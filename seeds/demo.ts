@@ -1,0 +1,63 @@
+/* eslint-disable @nx/enforce-module-boundaries -- the seed runs the API's own data layer (entities,
+   migrations, write lock); nx forbids importing an app, so the lead decides how to model this. */
+import { randomUUID } from 'node:crypto';
+import type { DataSource } from 'typeorm';
+import type { ShopRole } from '@tappet/contracts';
+import { databaseFor, type Database } from '../apps/api/src/db/write-lock';
+import { hashPassword } from '../apps/api/src/lib/password';
+import { recordAudit } from '../apps/api/src/modules/audit/audit.service';
+import { insertMembership, insertShop } from '../apps/api/src/modules/shops/shops.service';
+import { UserEntity } from '../apps/api/src/modules/users/users.entity';
+
+/** The demo password of every demo account. Public by design: never use it for real data. */
+export const demoPassword = 'tappet-demo';
+
+interface DemoPerson {
+  email: string;
+  name: string;
+  platformAdmin?: boolean;
+  memberships: Array<{ shop: 'harbour' | 'brackenfold'; role: ShopRole; spendingLimitMinor?: number }>;
+}
+
+// Invented people at invented shops; the .test domain is reserved for examples.
+const people: DemoPerson[] = [
+  { email: 'owner@harbour-works.test', name: 'Maren Tolliver', memberships: [{ shop: 'harbour', role: 'owner' }, { shop: 'brackenfold', role: 'viewer' }] },
+  { email: 'mechanic@harbour-works.test', name: 'Oskar Brannagh', memberships: [{ shop: 'harbour', role: 'mechanic' }] },
+  // 500.00 in minor units: orders up to that go out without the owner's approval.
+  { email: 'buyer@harbour-works.test', name: 'Ines Quarrington', memberships: [{ shop: 'harbour', role: 'buyer', spendingLimitMinor: 50_000 }] },
+  { email: 'viewer@harbour-works.test', name: 'Dilys Amberley', memberships: [{ shop: 'harbour', role: 'viewer' }] },
+  { email: 'owner@brackenfold-garage.test', name: 'Callum Fenwright', memberships: [{ shop: 'brackenfold', role: 'owner' }] },
+  { email: 'admin@tappet.test', name: 'Ottilie Marsh', platformAdmin: true, memberships: [] },
+];
+
+/** The demo sign-ins, for printing. */
+export const demoSignIns = people.map((p) => ({ email: p.email, roles: p.platformAdmin ? ['platform admin'] : p.memberships.map((m) => `${m.role} (${m.shop === 'harbour' ? 'Harbour Works' : 'Brackenfold Garage'})`) }));
+
+/**
+ * Seeds the demo scenario: Harbour Works with an owner, mechanic, buyer and viewer; Brackenfold
+ * Garage with its owner (and Harbour Works' owner as a viewer, so shop switching shows); a
+ * platform admin. All sign in with {@link demoPassword}. Does nothing when any user exists.
+ * Writes go through the data source's one write lock. Returns whether it seeded.
+ */
+export async function seedDemo(source: DataSource | Database, at: Date = new Date()): Promise<boolean> {
+  const db = 'write' in source ? source : databaseFor(source);
+  if ((await db.reader.count(UserEntity)) > 0) return false;
+  // Hashed before taking the lock (slow work); the seed is exempt from the common-password rule.
+  const hashes = await Promise.all(people.map(() => hashPassword(demoPassword)));
+  const actor = { userId: null, ip: null };
+  await db.write(async (manager) => {
+    const shops = {
+      harbour: await insertShop(manager, { name: 'Harbour Works', slug: 'harbour-works', at, actor }),
+      brackenfold: await insertShop(manager, { name: 'Brackenfold Garage', slug: 'brackenfold-garage', at, actor }),
+    };
+    for (const [i, person] of people.entries()) {
+      const id = randomUUID();
+      await manager.insert(UserEntity, { id, email: person.email, name: person.name, passwordHash: hashes[i]!, isPlatformAdmin: person.platformAdmin ?? false, isActive: true, createdAt: at });
+      await recordAudit(manager, { shopId: null, actor, action: 'user.created', entity: 'user', entityId: id, changes: { email: { before: null, after: person.email } }, at });
+      for (const m of person.memberships) {
+        await insertMembership(manager, { shopId: shops[m.shop].id, userId: id, role: m.role, spendingLimitMinor: m.spendingLimitMinor ?? null, at, actor });
+      }
+    }
+  });
+  return true;
+}

@@ -1,0 +1,32 @@
+// `npm run seed` (and the start script): migrate after a backup, then seed the demo when the
+// database has no users yet.
+/* eslint-disable @nx/enforce-module-boundaries -- the seed runs the API's own data layer (entities,
+   migrations, write lock); nx forbids importing an app, so the lead decides how to model this. */
+import { EnvError, loadEnv } from '../apps/api/src/config/env';
+import { createDataSource } from '../apps/api/src/db/data-source';
+import { migrateWithBackup } from '../apps/api/src/db/migrate';
+import { demoPassword, demoSignIns, seedDemo } from './demo';
+
+async function main(): Promise<void> {
+  const env = loadEnv();
+  const dataSource = createDataSource(env.databasePath);
+  await dataSource.initialize();
+  try {
+    const migrated = await migrateWithBackup(dataSource, env.backupsDir);
+    if (migrated.backupPath) console.log(`Backed up the database to ${migrated.backupPath} before migrating.`);
+    if (migrated.applied.length) console.log(`Applied migrations: ${migrated.applied.join(', ')}`);
+    if (await seedDemo(dataSource)) {
+      console.log(`Seeded the demo into ${env.databasePath}. Sign in with password "${demoPassword}" as:`);
+      for (const s of demoSignIns) console.log(`  ${s.email.padEnd(32)} ${s.roles.join(', ')}`);
+    } else {
+      console.log(`The database at ${env.databasePath} already has users; not seeding.`);
+    }
+  } finally {
+    await dataSource.destroy();
+  }
+}
+
+main().catch((err: unknown) => {
+  console.error(err instanceof EnvError ? err.message : err);
+  process.exit(1);
+});
