@@ -26,6 +26,7 @@ test('signed-out screens', async ({ page }) => {
 });
 
 test('signed-in screens, in light and dark themes', async ({ page }) => {
+  test.setTimeout(180_000);
   const shop = await createTestShop({ roles: ['owner'], platformAdmin: true });
   const signIn = new SignInPage(page);
   await signIn.goto();

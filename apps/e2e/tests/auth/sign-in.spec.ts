@@ -44,10 +44,36 @@ test.describe('sign in per role', () => {
     const newName = `${shop.shop.name} Restorations`;
     await page.getByLabel('Shop name').fill(newName);
     await page.getByRole('button', { name: /save/i }).click();
-    await expect(page.getByRole('status').filter({ hasText: /saved|renamed|updated/i }).first()).toBeVisible();
+    await expect(page.getByText(`Shop renamed to ${newName}.`)).toBeVisible();
     await page.getByRole('button', { name: 'Sign out' }).click();
     await expect(page).toHaveURL(/\/sign-in/);
     await page.goto(`/shops/${shop.shop.id}`);
     await expect(page).toHaveURL(/\/sign-in/);
+  });
+});
+
+test('a platform admin without a shop lands on the platform home, with no shop data', async ({ page }) => {
+  const shop = await createTestShop({ roles: ['owner'], platformAdmin: true });
+  const admin = userWithRole(shop, 'platform_admin');
+  const signIn = new SignInPage(page);
+  await signIn.goto();
+  await signIn.signIn(admin.email, shop.password);
+  await expect(page).toHaveURL(/\/platform$/);
+  expect(await signIn.navLinks()).not.toContain('Shop');
+  // The admin is no member of the shop: its pages are not found for them.
+  await page.goto(`/shops/${shop.shop.id}`);
+  await expect(page.getByRole('heading', { level: 1 })).toContainText(/not found/i);
+});
+
+test.describe('on a workshop tablet', () => {
+  test.use({ viewport: { width: 800, height: 1100 }, hasTouch: true });
+  test('the navigation opens from the menu button', async ({ page }) => {
+    const shop = await createTestShop({ roles: ['mechanic'] });
+    const signIn = new SignInPage(page);
+    await signIn.goto();
+    await signIn.signIn(userWithRole(shop, 'mechanic').email, shop.password);
+    await expect(page).toHaveURL(new RegExp(`/shops/${shop.shop.id}$`));
+    await page.getByRole('button', { name: 'Menu' }).click();
+    await expect(page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Home' })).toBeVisible();
   });
 });

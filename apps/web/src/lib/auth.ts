@@ -1,10 +1,10 @@
-import { idSchema, meResponseSchema } from '@tappet/contracts';
+import { meWithActiveShopSchema } from '@tappet/contracts';
 import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
 import type { z } from 'zod';
 import { ApiError, api } from './api-client';
 
-/** /api/me: the person, their memberships and the session's active shop (when the API says). */
-export const meSchema = meResponseSchema.extend({ activeShopId: idSchema.nullable().optional() });
+/** /api/me: the person, their memberships and the session's active shop. */
+export const meSchema = meWithActiveShopSchema;
 export type Me = z.infer<typeof meSchema>;
 export type MembershipView = Me['memberships'][number];
 
