@@ -1,6 +1,6 @@
 import { defineConfig } from 'vitest/config';
 import react from '@vitejs/plugin-react';
-import { libAliases } from '../../vitest.shared';
+import { libAliases } from '../../vitest.shared.ts';
 
 export default defineConfig({
   plugins: [react()],
