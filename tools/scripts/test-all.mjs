@@ -11,6 +11,7 @@ const steps = [
   ['type-check', 'npx', ['tsc', '-p', 'tsconfig.typecheck.json', '--noEmit']],
   ['unit and API tests', 'npx', ['vitest', 'run']],
   ['web build', 'npx', ['vite', 'build', '-c', 'apps/web/vite.config.ts', '--logLevel', 'warn']],
+  ['web bundle budget', 'node', ['tools/scripts/check-bundle-size.mjs']],
   ['browser tests', 'npx', ['playwright', 'test', '-c', 'apps/e2e/playwright.config.ts']],
 ];
 
