@@ -1,5 +1,5 @@
-/* eslint-disable @nx/enforce-module-boundaries -- the seed runs the API's own data layer (entities,
-   migrations, write lock); nx forbids importing an app, so the lead decides how to model this. */
+/* eslint-disable @nx/enforce-module-boundaries -- the seed writes through the API's own data layer
+   (entities, migrations, write lock); see docs/decisions/002-module-boundaries.md. */
 import { randomUUID } from 'node:crypto';
 import type { DataSource } from 'typeorm';
 import type { ShopRole } from '@tappet/contracts';
@@ -8,6 +8,7 @@ import { hashPassword } from '../apps/api/src/lib/password';
 import { recordAudit } from '../apps/api/src/modules/audit/audit.service';
 import { insertMembership, insertShop } from '../apps/api/src/modules/shops/shops.service';
 import { UserEntity } from '../apps/api/src/modules/users/users.entity';
+import { seedCatalogueDemo } from './catalogue-demo';
 
 /** The demo password of every demo account. Public by design: never use it for real data. */
 export const demoPassword = 'tappet-demo';
@@ -58,6 +59,7 @@ export async function seedDemo(source: DataSource | Database, at: Date = new Dat
         await insertMembership(manager, { shopId: shops[m.shop].id, userId: id, role: m.role, spendingLimitMinor: m.spendingLimitMinor ?? null, at, actor });
       }
     }
+    await seedCatalogueDemo(manager, { harbour: shops.harbour.id, brackenfold: shops.brackenfold.id }, at);
   });
   return true;
 }

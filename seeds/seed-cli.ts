@@ -1,7 +1,7 @@
 // `npm run seed` (and the start script): migrate after a backup, then seed the demo when the
 // database has no users yet.
-/* eslint-disable @nx/enforce-module-boundaries -- the seed runs the API's own data layer (entities,
-   migrations, write lock); nx forbids importing an app, so the lead decides how to model this. */
+/* eslint-disable @nx/enforce-module-boundaries -- the seed writes through the API's own data layer
+   (entities, migrations, write lock); see docs/decisions/002-module-boundaries.md. */
 import { EnvError, loadEnv } from '../apps/api/src/config/env';
 import { createDataSource } from '../apps/api/src/db/data-source';
 import { migrateWithBackup } from '../apps/api/src/db/migrate';

@@ -28,3 +28,4 @@ export * from './units';
 export * from './money';
 export * from './valuation';
 export * from './reorder';
+export * from './search';

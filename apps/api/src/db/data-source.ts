@@ -4,6 +4,13 @@ import { MembershipEntity, ShopEntity } from '../modules/shops/shops.entity';
 import { PasswordResetTokenEntity, SessionEntity } from '../modules/auth/auth.entity';
 import { AuditEventEntity } from '../modules/audit/audit.entity';
 import { InitialSchema1764633600000 } from './migrations/1764633600000-initial-schema';
+import { Catalogue1764720000000 } from './migrations/1764720000000-catalogue';
+import { catalogueEntities } from '../modules/catalogue/catalogue.entity';
+import { ShopAdministration1764806400000 } from './migrations/1764806400000-shop-administration';
+import { PartSearch1764900000000 } from './migrations/1764900000000-part-search';
+import { InvitationEntity } from '../modules/staff/staff.entity';
+import { ApiKeyEntity } from '../modules/api-keys/api-keys.entity';
+import { ShopSettingsEntity } from '../modules/settings/settings.entity';
 
 /** The few better-sqlite3 methods we call (the package ships no type declarations). */
 export interface SqliteHandle {
@@ -13,10 +20,10 @@ export interface SqliteHandle {
 }
 
 /** Every entity schema the app knows. */
-export const entities = [UserEntity, ShopEntity, MembershipEntity, SessionEntity, PasswordResetTokenEntity, AuditEventEntity];
+export const entities = [UserEntity, ShopEntity, MembershipEntity, SessionEntity, PasswordResetTokenEntity, AuditEventEntity, ...catalogueEntities, InvitationEntity, ApiKeyEntity, ShopSettingsEntity];
 
 /** Committed migrations, in order. Passed as classes: globs do not survive bundling or tsx. */
-export const migrations = [InitialSchema1764633600000];
+export const migrations = [InitialSchema1764633600000, Catalogue1764720000000, ShopAdministration1764806400000, PartSearch1764900000000];
 
 /**
  * Pragmas set on every connection. Set here rather than through `enableWAL` so that

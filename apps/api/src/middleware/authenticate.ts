@@ -2,6 +2,8 @@ import type { CookieOptions, Request, RequestHandler, Response } from 'express';
 import type { Env } from '../config/env';
 import { unauthenticated } from '../lib/http-error';
 import type { AuthService } from '../modules/auth/auth.service';
+import type { ApiKeyContext } from '../modules/api-keys/api-keys.service';
+import type { AuditActor } from '../modules/audit/audit.service';
 
 /** Name and attributes of the session cookie: `__Host-` prefixed and Secure when served over https. */
 export function sessionCookie(env: Env): { name: string; options: CookieOptions } {
@@ -36,12 +38,21 @@ export function clearSessionCookie(res: Response, env: Env): void {
 }
 
 /**
- * Attaches `req.auth` when the session cookie names a live session. Never rejects by itself:
- * `requireAuth` does. An expired or unknown cookie is cleared.
+ * Attaches `req.auth` when the session cookie names a live session, or `req.apiKey` for an
+ * `Authorization: Bearer tpk_…` key. A missing or expired session is left to `requireAuth` (and an
+ * expired or unknown cookie is cleared); a presented key that is unknown or revoked is a 401 here.
  */
-export function authenticate(env: Env, auth: AuthService): RequestHandler {
+export function authenticate(env: Env, auth: AuthService, apiKeys?: { resolve(secret: string): Promise<ApiKeyContext | null> }): RequestHandler {
   const { name } = sessionCookie(env);
   return async (req, res, next) => {
+    const secret = bearerApiKey(req);
+    if (secret !== null && apiKeys) {
+      // A request that presents a key is judged by the key alone: a bad one is refused outright.
+      const key = await apiKeys.resolve(secret);
+      if (!key) return next(unauthenticated('This API key is not valid or has been revoked.'));
+      req.apiKey = key;
+      return next();
+    }
     const token = readCookie(req, name);
     if (token) {
       const context = await auth.resolveSession(token);
@@ -52,10 +63,26 @@ export function authenticate(env: Env, auth: AuthService): RequestHandler {
   };
 }
 
-/** 401 unless a session is attached. */
+/** The secret of an `Authorization: Bearer tpk_…` header, or null. */
+export function bearerApiKey(req: Request): string | null {
+  const match = /^Bearer\s+(tpk_[A-Za-z0-9_-]{1,200})\s*$/.exec(req.get('authorization') ?? '');
+  return match?.[1] ?? null;
+}
+
+/**
+ * 401 unless a session (or an API key) is attached. Key requests pass only into shop routes,
+ * where `tenantContext` confines them to the key's shop; `authOf` refuses them everywhere else.
+ */
 export const requireAuth: RequestHandler = (req, _res, next) => {
-  next(req.auth ? undefined : unauthenticated());
+  next(req.auth || req.apiKey ? undefined : unauthenticated());
 };
+
+/** Who is acting, for the audit log: the person, the API key (and the member it acts for), and the address. */
+export function auditActorOf(req: Request): AuditActor & { userId: string | null; name: string | null } {
+  const ip = req.ip ?? null;
+  if (req.apiKey) return { userId: req.apiKey.userId, apiKeyId: req.apiKey.id, ip, name: req.apiKey.label };
+  return { userId: req.auth?.user.id ?? null, apiKeyId: null, ip, name: req.auth?.user.name ?? null };
+}
 
 /** The session of a request that passed `requireAuth`. */
 export function authOf(req: Request) {

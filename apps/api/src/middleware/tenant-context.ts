@@ -16,10 +16,23 @@ const noSuchShop = () => notFound('No such shop.');
  */
 export function tenantContext(db: Database): RequestHandler {
   return async (req, _res, next) => {
-    const auth = authOf(req);
     const parsed = idSchema.safeParse(req.params['shopId']);
     if (!parsed.success) throw noSuchShop();
     const shopId = parsed.data;
+    if (req.apiKey) {
+      // An API key acts in its own shop only, with its own role (at most buyer).
+      const key = req.apiKey;
+      const shop = key.shopId === shopId ? await db.reader.findOne(ShopEntity, { where: { id: shopId } }) : null;
+      if (!shop) throw noSuchShop();
+      req.shop = shop;
+      req.membership = { id: key.id, shopId, userId: key.userId ?? '', role: key.role, spendingLimitMinor: null, isActive: true, createdAt: shop.createdAt };
+      req.ability = defineAbilityFor(
+        { userId: key.userId ?? `api-key:${key.id}`, isPlatformAdmin: false, apiKeyId: key.id },
+        { shopId, role: key.role, spendingLimitMinor: null, writable: !readOnlyBillingStates.includes(shop.billingState) },
+      );
+      return next();
+    }
+    const auth = authOf(req);
     const membership = await shopScoped(db.reader, MembershipEntity, shopId).findOne({ userId: auth.user.id, isActive: true });
     if (!membership) throw noSuchShop();
     const shop = await db.reader.findOne(ShopEntity, { where: { id: shopId } });

@@ -14,11 +14,18 @@ import {
   shopListResponseSchema,
   updateShopRequestSchema,
 } from '@tappet/contracts';
+import { catalogueRouteDocs } from '../modules/catalogue/catalogue.openapi';
+import { lookupRouteDocs } from '../modules/lookup/lookup.openapi';
+import { staffRouteDocs } from '../modules/staff/staff.openapi';
+import { apiKeyRouteDocs } from '../modules/api-keys/api-keys.openapi';
+import { auditRouteDocs } from '../modules/audit/audit.openapi';
+import { settingsRouteDocs } from '../modules/settings/settings.openapi';
+import { shopExportRouteDocs } from '../modules/shop-export/shop-export.openapi';
 import { createTestShopRequestSchema, createTestShopResponseSchema } from '../modules/test-support/test-support.router';
 
 type Method = RouteConfig['method'];
 
-interface RouteDoc {
+export interface RouteDoc {
   method: Method;
   /** OpenAPI path, `{param}` style. */
   path: string;
@@ -29,6 +36,12 @@ interface RouteDoc {
   body?: z.ZodType;
   response: z.ZodType;
   status?: number;
+  /** Body media type when not JSON (file uploads). */
+  bodyType?: 'multipart/form-data';
+  /** Response media type when not JSON (CSV exports). */
+  responseType?: 'text/csv' | 'application/zip';
+  /** Query string schema. */
+  query?: z.ZodObject;
   /** Error statuses worth listing beyond the ones every route has. */
   errors?: Record<number, string>;
 }
@@ -103,6 +116,13 @@ export function apiRoutes(options: { testSupport: boolean }): RouteDoc[] {
       response: shopDetailSchema,
       errors: { 403: 'Not allowed for this role', 404: 'Not a member of that shop' },
     },
+    ...catalogueRouteDocs,
+    ...lookupRouteDocs,
+    ...staffRouteDocs,
+    ...apiKeyRouteDocs,
+    ...auditRouteDocs,
+    ...settingsRouteDocs,
+    ...shopExportRouteDocs,
   ];
   if (options.testSupport) {
     routes.push({
@@ -128,12 +148,17 @@ export function buildOpenApiDocument(options: { testSupport: boolean; serverUrl:
     name: 'tappet_session',
     description: 'Session cookie set by sign-in (`__Host-tappet_session` when served over https).',
   });
+  registry.registerComponent('securitySchemes', 'apiKey', {
+    type: 'http',
+    scheme: 'bearer',
+    description: 'An API key (`tpk_…`) created by an owner; acts in its own shop as a viewer or buyer. Needs no X-CSRF header when sent without cookies.',
+  });
   const csrfHeader = z.object({ 'x-csrf': z.literal('1').meta({ description: 'Required on every request that changes data.' }) });
 
   for (const route of apiRoutes(options)) {
     const changesData = route.method !== 'get' && route.method !== 'head';
     const responses: RouteConfig['responses'] = {
-      [route.status ?? 200]: { description: 'Success', content: json(route.response) },
+      [route.status ?? 200]: { description: 'Success', content: route.responseType ? { [route.responseType]: { schema: route.response } } : json(route.response) },
       400: { description: 'Invalid input (validation_failed, bad_request)', content: json(errorBodySchema) },
     };
     if (route.auth) responses[401] = { description: 'Not signed in', content: json(errorBodySchema) };
@@ -146,11 +171,13 @@ export function buildOpenApiDocument(options: { testSupport: boolean; serverUrl:
       path: route.path,
       summary: route.summary,
       tags: [route.tag],
-      security: route.auth ? [{ sessionCookie: [] }] : undefined,
+      // Keys work only inside their own shop: other routes take the session alone.
+      security: route.auth ? (route.path.startsWith('/api/shops/{shopId}') ? [{ sessionCookie: [] }, { apiKey: [] }] : [{ sessionCookie: [] }]) : undefined,
       request: {
         params: route.params,
         headers: changesData ? csrfHeader : undefined,
-        body: route.body ? { required: true, content: json(route.body) } : undefined,
+        query: route.query,
+        body: route.body ? { required: true, content: route.bodyType ? { [route.bodyType]: { schema: route.body } } : json(route.body) } : undefined,
       },
       responses,
     });

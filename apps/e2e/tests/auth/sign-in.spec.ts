@@ -42,7 +42,7 @@ test.describe('sign in per role', () => {
     await signIn.signIn(userWithRole(shop, 'owner').email, shop.password);
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Shop' }).click();
     // The home page has the same form: wait until the Shop page has replaced it.
-    await expect(page.getByRole('heading', { level: 1, name: 'Shop' })).toBeVisible();
+    await expect(page.getByRole('heading', { level: 1, name: 'Shop', exact: true })).toBeVisible();
     const newName = `${shop.shop.name} Restorations`;
     await page.getByLabel('Shop name').fill(newName);
     await page.getByRole('button', { name: /save/i }).click();

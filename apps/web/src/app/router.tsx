@@ -47,6 +47,7 @@ export function createAppRouter(queryClient: QueryClient, createRouter: RouterFa
         { path: paths.auth.signIn.path, lazy: load(queryClient, () => import('./routes/auth/sign-in')) },
         { path: paths.auth.forgotPassword.path, lazy: load(queryClient, () => import('./routes/auth/forgot-password')) },
         { path: paths.auth.resetPassword.path, lazy: load(queryClient, () => import('./routes/auth/reset-password')) },
+        { path: paths.auth.acceptInvitation.path, lazy: load(queryClient, () => import('./routes/auth/accept-invitation')) },
         {
           id: 'app',
           lazy: load(queryClient, () => import('./routes/app/layout')),
@@ -57,6 +58,13 @@ export function createAppRouter(queryClient: QueryClient, createRouter: RouterFa
               children: [
                 { index: true, lazy: load(queryClient, () => import('./routes/app/shop/home')) },
                 { path: 'shop', lazy: load(queryClient, () => import('./routes/app/shop/settings')) },
+                { path: 'staff', lazy: load(queryClient, () => import('./routes/app/shop/admin/staff')) },
+                { path: 'audit-log', lazy: load(queryClient, () => import('./routes/app/shop/admin/audit-log')) },
+                { path: 'api-keys', lazy: load(queryClient, () => import('./routes/app/shop/admin/api-keys')) },
+                { path: 'lookup', lazy: load(queryClient, () => import('./routes/app/shop/lookup')) },
+                { path: 'catalogue', lazy: load(queryClient, () => import('./routes/app/shop/catalogue/list')) },
+                { path: 'catalogue/import', lazy: load(queryClient, () => import('./routes/app/shop/catalogue/import')) },
+                { path: 'catalogue/:partId', lazy: load(queryClient, () => import('./routes/app/shop/catalogue/part')) },
               ],
             },
             { path: paths.platform.path, lazy: load(queryClient, () => import('./routes/app/platform')) },

@@ -12,10 +12,25 @@ export const paths = {
     },
     forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
     resetPassword: { path: '/reset-password', getHref: (token: string) => `/reset-password?token=${encodeURIComponent(token)}` },
+    acceptInvitation: { path: '/accept-invitation', getHref: (token: string) => `/accept-invitation?token=${encodeURIComponent(token)}` },
   },
   shop: {
     home: { path: '/shops/:shopId', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}` },
     settings: { path: '/shops/:shopId/shop', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/shop` },
+    staff: { path: '/shops/:shopId/staff', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/staff` },
+    auditLog: { path: '/shops/:shopId/audit-log', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/audit-log` },
+    apiKeys: { path: '/shops/:shopId/api-keys', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/api-keys` },
+    lookup: { path: '/shops/:shopId/lookup', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/lookup` },
+    catalogue: {
+      path: '/shops/:shopId/catalogue',
+      /** `search` is the list's filter state as a query string (without "?"), so filtered views can be linked. */
+      getHref: (shopId: string, search?: string) => `/shops/${encodeURIComponent(shopId)}/catalogue${search ? `?${search}` : ''}`,
+    },
+    catalogueImport: { path: '/shops/:shopId/catalogue/import', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/catalogue/import` },
+    part: {
+      path: '/shops/:shopId/catalogue/:partId',
+      getHref: (shopId: string, partId: string) => `/shops/${encodeURIComponent(shopId)}/catalogue/${encodeURIComponent(partId)}`,
+    },
   },
   platform: { path: '/platform', getHref: () => '/platform' },
   noShop: { path: '/welcome', getHref: () => '/welcome' },

@@ -67,17 +67,22 @@ export interface RequestOptions<T> {
 
 /**
  * Calls the API at `env.apiBaseUrl + path`. Sends the session cookie (same origin only), and on
- * every request that changes something the `X-CSRF: 1` header and a JSON content type the API
+ * every request that changes something the `X-CSRF: 1` header and (unless the body is FormData) a JSON content type the API
  * requires against cross-site request forgery. Throws ApiError on any failure.
  */
 export async function apiRequest<T = unknown>(path: string, options: RequestOptions<T> = {}): Promise<T> {
   const method = options.method ?? 'GET';
   const headers: Record<string, string> = { Accept: 'application/json' };
-  let body: string | undefined;
+  let body: string | FormData | undefined;
   if (method !== 'GET') {
     headers['X-CSRF'] = '1';
-    headers['Content-Type'] = 'application/json';
-    body = JSON.stringify(options.body ?? {});
+    if (options.body instanceof FormData) {
+      // A file upload: the browser sets the multipart content type with its boundary.
+      body = options.body;
+    } else {
+      headers['Content-Type'] = 'application/json';
+      body = JSON.stringify(options.body ?? {});
+    }
   }
 
   let response: Response;

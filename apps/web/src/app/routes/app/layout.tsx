@@ -5,7 +5,12 @@ import { Navigate, Outlet, redirect, useLocation, useMatch, useNavigate, type Lo
 import { AppShell, type NavItem } from '../../../components/layouts/app-shell';
 import { paths } from '../../../config/paths';
 import { useSignOut } from '../../../features/auth/api/sign-out';
+import { IconCatalogue } from '../../../features/catalogue/components/catalogue-icon';
+import { IconApiKey } from '../../../features/api-keys/components/api-key-icon';
+import { IconAuditLog } from '../../../features/audit/components/audit-icon';
+import { IconLookup } from '../../../features/lookup/components/lookup-icon';
 import { ShopSwitcher } from '../../../features/shops/components/shop-switcher';
+import { IconStaff } from '../../../features/staff/components/staff-icon';
 import { abilityFor, canOn, ShopAbilityProvider } from '../../../lib/ability';
 import { errorMessage } from '../../../lib/api-client';
 import { defaultShopId, meQueryOptions, useMe, type Me } from '../../../lib/auth';
@@ -26,10 +31,18 @@ export const clientLoader =
 function navFor(me: Me, shopId: string | null): NavItem[] {
   const items: NavItem[] = [];
   if (shopId) {
+    // Lookup first: it is what people at the bench come for.
+    if (canOn(abilityFor(me, shopId), 'read', 'Part', { shopId })) items.push({ to: paths.shop.lookup.getHref(shopId), label: 'Lookup', icon: <IconLookup /> });
     items.push({ to: paths.shop.home.getHref(shopId), label: 'Home', icon: <IconHome />, end: true });
+    if (canOn(abilityFor(me, shopId), 'read', 'Part', { shopId })) {
+      items.push({ to: paths.shop.catalogue.getHref(shopId), label: 'Catalogue', icon: <IconCatalogue /> });
+    }
     if (canOn(abilityFor(me, shopId), 'update', 'Shop', { shopId })) {
       items.push({ to: paths.shop.settings.getHref(shopId), label: 'Shop', icon: <IconShop /> });
     }
+    if (canOn(abilityFor(me, shopId), 'read', 'Staff', { shopId })) items.push({ to: paths.shop.staff.getHref(shopId), label: 'Staff', icon: <IconStaff /> });
+    if (canOn(abilityFor(me, shopId), 'read', 'AuditLog', { shopId })) items.push({ to: paths.shop.auditLog.getHref(shopId), label: 'Audit log', icon: <IconAuditLog /> });
+    if (canOn(abilityFor(me, shopId), 'read', 'ApiKey', { shopId })) items.push({ to: paths.shop.apiKeys.getHref(shopId), label: 'API keys', icon: <IconApiKey /> });
     if (me.user.isPlatformAdmin) items.push({ to: paths.platform.getHref(), label: 'Platform', icon: <IconPlatform /> });
   } else if (me.user.isPlatformAdmin) {
     items.push({ to: paths.platform.getHref(), label: 'Home', icon: <IconHome /> });
@@ -59,7 +72,8 @@ export default function AppLayoutRoute() {
   // On a shop URL the URL decides; elsewhere (API docs, platform) the session's active shop does.
   const shopId = urlShopId ? (me.memberships.some((m) => m.shopId === urlShopId) ? urlShopId : null) : defaultShopId(me);
   const nav = navFor(me, shopId);
-  const home = nav[0]?.to ?? '/';
+  // The logo leads home, not to whatever the rail lists first.
+  const home = nav.find((item) => item.label === 'Home')?.to ?? nav[0]?.to ?? '/';
 
   return (
     <ShopAbilityProvider me={me} shopId={shopId}>

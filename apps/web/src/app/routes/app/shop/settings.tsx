@@ -3,27 +3,35 @@ import { EmptyState, ErrorState, LoadingState } from '@tappet/ui';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { PageHeader } from '../../../../components/layouts/page-header';
 import { paths } from '../../../../config/paths';
+import { settingsQueryOptions, useSettings } from '../../../../features/settings/api/get-settings';
+import { ExportPanel } from '../../../../features/settings/components/export-panel';
+import { SettingsForm } from '../../../../features/settings/components/settings-form';
 import { shopQueryOptions, useShop } from '../../../../features/shops/api/get-shop';
 import { ShopDetails } from '../../../../features/shops/components/shop-details';
-import { ShopNameForm } from '../../../../features/shops/components/shop-name-form';
-import { useCan } from '../../../../lib/ability';
+import { abilityFor, canOn, useCan } from '../../../../lib/ability';
 import { errorMessage } from '../../../../lib/api-client';
-import { useMe } from '../../../../lib/auth';
+import { meQueryOptions, useMe } from '../../../../lib/auth';
 import { useDocumentTitle } from '../../../../lib/use-document-title';
 
 export const clientLoader =
   (queryClient: QueryClient) =>
   async ({ params }: LoaderFunctionArgs) => {
-    if (params.shopId) await queryClient.prefetchQuery(shopQueryOptions(params.shopId));
+    const me = await queryClient.ensureQueryData(meQueryOptions());
+    if (me && params.shopId && canOn(abilityFor(me, params.shopId), 'update', 'Settings', { shopId: params.shopId })) {
+      void queryClient.prefetchQuery(settingsQueryOptions(params.shopId));
+      void queryClient.prefetchQuery(shopQueryOptions(params.shopId));
+    }
     return null;
   };
 
-/** The Shop page (owners): the shop's record and its name. */
+/** The Shop page (owners): the shop's record, every setting, and the whole-shop export. */
 export default function ShopSettingsRoute() {
   const { shopId = '' } = useParams();
   const me = useMe();
   const membership = me?.memberships.find((m) => m.shopId === shopId);
-  const canManage = useCan('update', 'Shop', { shopId });
+  const canManage = useCan('update', 'Settings', { shopId });
+  const canExport = useCan('export', 'ShopExport', { shopId });
+  const settings = useSettings(shopId, { enabled: canManage });
   const shop = useShop(shopId);
   useDocumentTitle(membership ? `${membership.shopName} · Shop` : 'Shop');
 
@@ -45,27 +53,41 @@ export default function ShopSettingsRoute() {
 
   return (
     <>
-      <PageHeader eyebrow={membership.shopName} title="Shop" description="The shop’s record on Tappet and its name." />
-      {shop.isPending ? (
-        <LoadingState label="Loading the shop…" />
-      ) : shop.isError ? (
-        <ErrorState message={errorMessage(shop.error)} onRetry={() => void shop.refetch()} />
-      ) : (
-        <div className="flex flex-col gap-6">
-          <section aria-labelledby="details-title" className="flex flex-col gap-4 rounded-lg border-2 border-line bg-surface p-5">
-            <h2 id="details-title" className="text-lg font-bold">
-              Details
+      <PageHeader eyebrow={membership.shopName} title="Shop" description="The shop’s settings, its record on Tappet, and a copy of all its data." />
+      <div className="flex flex-col gap-8">
+        <section aria-labelledby="settings-title" className="flex flex-col gap-4">
+          <h2 id="settings-title" className="text-lg font-bold">
+            Settings
+          </h2>
+          {settings.isPending ? (
+            <LoadingState label="Loading the settings…" />
+          ) : settings.isError ? (
+            <ErrorState message={errorMessage(settings.error)} onRetry={() => void settings.refetch()} />
+          ) : (
+            <SettingsForm shopId={shopId} settings={settings.data} />
+          )}
+        </section>
+        {canExport && (
+          <section aria-labelledby="export-title" className="flex flex-col gap-4 rounded-lg border-2 border-line bg-surface p-5">
+            <h2 id="export-title" className="text-lg font-bold">
+              Download everything
             </h2>
+            <ExportPanel shopId={shopId} />
+          </section>
+        )}
+        <section aria-labelledby="details-title" className="flex flex-col gap-4 rounded-lg border-2 border-line bg-surface p-5">
+          <h2 id="details-title" className="text-lg font-bold">
+            On Tappet
+          </h2>
+          {shop.isPending ? (
+            <LoadingState label="Loading the shop…" />
+          ) : shop.isError ? (
+            <ErrorState message={errorMessage(shop.error)} onRetry={() => void shop.refetch()} />
+          ) : (
             <ShopDetails shop={shop.data} />
-          </section>
-          <section aria-labelledby="rename-title" className="flex flex-col gap-4 rounded-lg border-2 border-line bg-surface p-5">
-            <h2 id="rename-title" className="text-lg font-bold">
-              Rename the shop
-            </h2>
-            <ShopNameForm shopId={shopId} currentName={shop.data.name} />
-          </section>
-        </div>
-      )}
+          )}
+        </section>
+      </div>
     </>
   );
 }

@@ -1,0 +1,111 @@
+import Fuse from 'fuse.js';
+import { lineageReason, matchDescription, matchNumber, mergeHits, MIN_SUBSTRING_QUERY, normalisePartNumber, typosWithin, type LineageGraph, type SearchHit } from '@tappet/domain';
+import type { PartSearchQueryParsed, PartSearchResponse } from '@tappet/contracts';
+import type { PartSearchFilters, PartSearchIndex, SearchablePart } from './part-search-index';
+
+/** How many typo candidates the index hands over for exact distance and re-ranking. */
+export const TYPO_CANDIDATES = 500;
+/** How many parts containing the query are considered. */
+const SUBSTRING_CANDIDATES = 200;
+/** Numbers have at most 40 characters, so a longer key is two typos from nothing: no typo search (and no 200 patterns). */
+const MAX_TYPO_KEY = 42;
+/** Options asked of the lineage engine per exact hit. */
+const LINEAGE_OPTIONS = 20;
+
+/**
+ * Whether a typed key is within the typo tolerance of one of a candidate's folded keys
+ * (space-separated, as the index holds them) or of one of their tails (the prefix left out).
+ */
+export function nearEnough(key: string, keys: string): boolean {
+  for (const k of keys.split(' ')) {
+    if (!k) continue;
+    if (typosWithin(key, k) !== null) return true;
+    for (let j = 1; k.length - j >= MIN_SUBSTRING_QUERY; j++) if (typosWithin(key, k.slice(j)) !== null) return true;
+  }
+  return false;
+}
+
+/**
+ * The lookup: candidates from the index (exact keys, prefix or substring, trigram neighbours,
+ * description words), lineage relatives of exact hits from the shop's lineage graph, then the
+ * forgiving matchers of libs/domain decide and rank; fuse.js only breaks ties among candidates.
+ */
+export function createLookupService(deps: { index: PartSearchIndex; graphOf: (shopId: string) => Promise<LineageGraph> }) {
+  const { index, graphOf } = deps;
+
+  /** Current parts and fill options of each exact hit, as lineage hits naming the number typed. */
+  async function relatives(shopId: string, exact: SearchablePart[]): Promise<SearchHit[]> {
+    if (exact.length === 0) return [];
+    const graph = await graphOf(shopId);
+    const hits: SearchHit[] = [];
+    for (const part of exact) {
+      if (!graph.hasPart(part.id)) continue;
+      let rank = 0;
+      for (const current of graph.currentParts(part.id).current) {
+        if (current.partId !== part.id) hits.push({ partId: current.partId, match: 'lineage', reason: `replaces ${part.number}`, rank: rank++ });
+      }
+      for (const option of graph.canFill(part.id, { maxOptions: LINEAGE_OPTIONS }).options) {
+        for (const piece of option.parts) {
+          if (piece.partId !== part.id) hits.push({ partId: piece.partId, match: 'lineage', reason: lineageReason(part.number, option.via, option.needsChanges), rank: rank++ });
+        }
+      }
+    }
+    return hits;
+  }
+
+  return {
+    /** Answers one lookup in a shop; see the issue 5 ranking: exact, lineage, partial, fuzzy. */
+    async search(shopId: string, query: PartSearchQueryParsed): Promise<PartSearchResponse> {
+      const q = query.q;
+      const key = normalisePartNumber(q);
+      const filters: PartSearchFilters = { marque: query.marque, model: query.model, year: query.year, category: query.category, origin: query.origin };
+
+      const [exactIds, numberIds, typoCandidates, descriptionCandidates] = await Promise.all([
+        key ? index.byKey(shopId, key) : Promise.resolve([]),
+        !key ? Promise.resolve([]) : key.length < MIN_SUBSTRING_QUERY ? index.byPrefix(shopId, key, filters, SUBSTRING_CANDIDATES) : index.bySubstring(shopId, key, filters, SUBSTRING_CANDIDATES),
+        key.length >= MIN_SUBSTRING_QUERY && key.length <= MAX_TYPO_KEY ? index.byTypos(shopId, key, filters, TYPO_CANDIDATES) : Promise.resolve([]),
+        q.length >= MIN_SUBSTRING_QUERY ? index.byDescription(shopId, q, filters, TYPO_CANDIDATES) : Promise.resolve([]),
+      ]);
+
+      // Only candidates that can match are loaded: numbers within the typo tolerance (also without
+      // their prefix), descriptions whose words all meet the typed words.
+      const typoIds = typoCandidates.filter((c) => nearEnough(key, c.keys)).map((c) => c.id);
+      const descriptionIds = descriptionCandidates.filter((c) => matchDescription(q, c.description) !== null).map((c) => c.id);
+
+      // Lineage starts from exact hits whatever the filters; the filters then apply to every result.
+      const exactParts = await index.load(shopId, exactIds, {});
+      const lineageHits = await relatives(shopId, exactParts.filter((p) => matchNumber(q, p.numbers)?.match === 'exact'));
+      const ids = [...new Set([...exactIds, ...lineageHits.map((h) => h.partId), ...numberIds, ...typoIds, ...descriptionIds])];
+      const parts = await index.load(shopId, ids, filters);
+      const byId = new Map(parts.map((p) => [p.id, p]));
+
+      // fuse.js over the candidates only: a tie-break inside each kind of match.
+      const fuse = new Fuse(
+        parts.map((p) => ({ id: p.id, numbers: p.numbers.map((n) => n.number), description: p.description })),
+        { keys: ['numbers', 'description'], includeScore: true, ignoreLocation: true, threshold: 1 },
+      );
+      const tieBreak = new Map(fuse.search(q).map((r) => [r.item.id, r.score ?? 1]));
+
+      const hits: SearchHit[] = lineageHits.filter((h) => byId.has(h.partId));
+      for (const part of parts) {
+        const number = matchNumber(q, part.numbers);
+        if (number) hits.push({ partId: part.id, ...number, tieBreak: tieBreak.get(part.id) });
+        const words = q.length >= MIN_SUBSTRING_QUERY ? matchDescription(q, part.description) : null;
+        if (words) {
+          const reason = `description words: ${words.words.join(' ')}`;
+          // Whole words rank after numbers containing the query; typo'd words after typo'd numbers.
+          if (words.typos === 0) hits.push({ partId: part.id, match: 'partial', reason, rank: 10, tieBreak: tieBreak.get(part.id) });
+          else hits.push({ partId: part.id, match: 'fuzzy', reason, rank: 10 + words.typos, tieBreak: tieBreak.get(part.id) });
+        }
+      }
+
+      const results = mergeHits(hits, query.limit).map((hit) => {
+        const part = byId.get(hit.partId)!;
+        return { id: part.id, number: part.number, description: part.description, origin: part.origin, category: part.category, status: part.status, match: hit.match, reason: hit.reason };
+      });
+      return { results };
+    },
+  };
+}
+
+export type LookupService = ReturnType<typeof createLookupService>;

@@ -1,0 +1,92 @@
+import {
+  acceptInvitationRequestSchema,
+  createInvitationRequestSchema,
+  invitationParamsSchema,
+  invitationSummarySchema,
+  invitationTokenParamsSchema,
+  meWithActiveShopSchema,
+  membershipParamsSchema,
+  okResponseSchema,
+  publicInvitationSchema,
+  shopIdParamsSchema,
+  staffListResponseSchema,
+  staffMemberSchema,
+  updateMemberRoleRequestSchema,
+  updateSpendingLimitRequestSchema,
+} from '@tappet/contracts';
+import type { RouteDoc } from '../../openapi/openapi';
+
+const tag = 'staff';
+const ownerOnly = { 403: 'Owners only (never API keys)', 404: 'Not a member of that shop, or no such record in it' };
+const lastOwner = { 409: 'The shop would lose its last active owner' };
+
+/** OpenAPI entries of the staff and invitation routes. */
+export const staffRouteDocs: RouteDoc[] = [
+  { method: 'get', path: '/api/shops/{shopId}/staff', summary: 'Members (active and deactivated) and open invitations', tag, auth: true, params: shopIdParamsSchema, response: staffListResponseSchema, errors: ownerOnly },
+  {
+    method: 'post',
+    path: '/api/shops/{shopId}/staff/invitations',
+    summary: 'Invite an e-mail address with a role; the link (valid 7 days, once) is e-mailed',
+    tag,
+    auth: true,
+    params: shopIdParamsSchema,
+    body: createInvitationRequestSchema,
+    response: invitationSummarySchema,
+    status: 201,
+    errors: { ...ownerOnly, 409: 'Already a member, or already invited', 429: 'Too many invitations from this shop (see Retry-After)' },
+  },
+  {
+    method: 'post',
+    path: '/api/shops/{shopId}/staff/invitations/{invitationId}/resend',
+    summary: 'E-mail a new link; the old one stops working and the 7 days start again',
+    tag,
+    auth: true,
+    params: invitationParamsSchema,
+    response: invitationSummarySchema,
+    errors: { ...ownerOnly, 429: 'Too many invitations from this shop (see Retry-After)' },
+  },
+  { method: 'delete', path: '/api/shops/{shopId}/staff/invitations/{invitationId}', summary: 'Withdraw an open invitation', tag, auth: true, params: invitationParamsSchema, response: okResponseSchema, errors: ownerOnly },
+  { method: 'patch', path: '/api/shops/{shopId}/staff/{membershipId}/role', summary: "Change a member's role", tag, auth: true, params: membershipParamsSchema, body: updateMemberRoleRequestSchema, response: staffMemberSchema, errors: { ...ownerOnly, ...lastOwner } },
+  {
+    method: 'patch',
+    path: '/api/shops/{shopId}/staff/{membershipId}/spending-limit',
+    summary: "Set a buyer's spending limit (minor units; null = none)",
+    tag,
+    auth: true,
+    params: membershipParamsSchema,
+    body: updateSpendingLimitRequestSchema,
+    response: staffMemberSchema,
+    errors: { ...ownerOnly, 409: 'The member is not a buyer' },
+  },
+  {
+    method: 'post',
+    path: '/api/shops/{shopId}/staff/{membershipId}/deactivate',
+    summary: 'Deactivate a member (kept, never deleted); their sessions in this shop end at once',
+    tag,
+    auth: true,
+    params: membershipParamsSchema,
+    response: staffMemberSchema,
+    errors: { ...ownerOnly, ...lastOwner },
+  },
+  { method: 'post', path: '/api/shops/{shopId}/staff/{membershipId}/reactivate', summary: 'Reactivate a member', tag, auth: true, params: membershipParamsSchema, response: staffMemberSchema, errors: ownerOnly },
+  {
+    method: 'get',
+    path: '/api/invitations/{token}',
+    summary: 'What an invitation link offers (shop, e-mail, role)',
+    tag,
+    auth: false,
+    params: invitationTokenParamsSchema,
+    response: publicInvitationSchema,
+    errors: { 404: 'Unknown, used, withdrawn or expired' },
+  },
+  {
+    method: 'post',
+    path: '/api/invitations/accept',
+    summary: 'Accept an invitation: a new account (name, password) is created and signed in; an existing account must be signed in and joins',
+    tag,
+    auth: false,
+    body: acceptInvitationRequestSchema,
+    response: meWithActiveShopSchema,
+    errors: { 403: 'The address has an account: sign in as it first', 404: 'Unknown, used, withdrawn or expired', 409: 'Already a member' },
+  },
+];

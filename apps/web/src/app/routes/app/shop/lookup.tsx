@@ -1,0 +1,20 @@
+import { useParams } from 'react-router-dom';
+import { LookupScreen } from '../../../../features/lookup/components/lookup-screen';
+import { useMe } from '../../../../lib/auth';
+import { useDocumentTitle } from '../../../../lib/use-document-title';
+
+/** /shops/:shopId/lookup: the bench lookup, the search field first. */
+export default function LookupRoute() {
+  const { shopId = '' } = useParams();
+  const me = useMe();
+  const membership = me?.memberships.find((m) => m.shopId === shopId);
+  useDocumentTitle(membership ? `${membership.shopName} · Lookup` : 'Lookup');
+  if (!me || !membership) return null;
+  return (
+    <div className="mx-auto flex w-full max-w-4xl flex-col gap-2">
+      <h1 className="sr-only">Lookup</h1>
+      {/* Keyed by shop and person: switching either starts a fresh field and list. */}
+      <LookupScreen key={`${me.user.id}:${shopId}`} shopId={shopId} userId={me.user.id} />
+    </div>
+  );
+}

@@ -1,0 +1,124 @@
+import type { PartListResponse } from '@tappet/contracts';
+import { Button, createColumnHelper, DataTable, EmptyState, ErrorState, LoadingState, PartNumber } from '@tappet/ui';
+import { useMemo, type ReactNode } from 'react';
+import { Link } from 'react-router-dom';
+import { paths } from '../../../config/paths';
+import { errorMessage } from '../../../lib/api-client';
+import { useParts, type PartListParams } from '../api/get-parts';
+import { CatalogueFilters } from './catalogue-filters';
+import { PartStatusPill, ProblemCount } from './part-badges';
+import { originWords } from './words';
+
+type Row = PartListResponse['items'][number];
+const column = createColumnHelper<Row>();
+
+export interface CatalogueListProps {
+  shopId: string;
+  params: PartListParams;
+  filtered: boolean;
+  onChange: (change: Partial<PartListParams>) => void;
+  onClear: () => void;
+  /** What to offer when the catalogue is empty (add / import), for those who may. */
+  emptyActions?: ReactNode;
+}
+
+/** The catalogue as a table, filtered and paged by the API. */
+export function CatalogueList({ shopId, params, filtered, onChange, onClear, emptyActions }: CatalogueListProps) {
+  const parts = useParts(shopId, params);
+
+  const columns = useMemo(
+    () => [
+      column.accessor('number', {
+        header: 'Number',
+        enableSorting: false,
+        cell: (info) => (
+          <Link to={paths.shop.part.getHref(shopId, info.row.original.id)} className="text-accent underline-offset-4 hover:underline">
+            <PartNumber>{info.getValue()}</PartNumber>
+          </Link>
+        ),
+      }),
+      column.accessor('description', { header: 'Description', enableSorting: false }),
+      column.accessor('origin', { header: 'Origin', enableSorting: false, cell: (info) => originWords[info.getValue()] }),
+      column.accessor('category', { header: 'Category', enableSorting: false, cell: (info) => info.getValue() ?? <span className="text-ink-muted">—</span> }),
+      column.accessor('status', { header: 'Status', enableSorting: false, cell: (info) => <PartStatusPill status={info.getValue()} /> }),
+      column.accessor('problemCount', { header: 'Problems', enableSorting: false, cell: (info) => <ProblemCount count={info.getValue()} /> }),
+    ],
+    [shopId],
+  );
+
+  const data = parts.data;
+  const categories = data?.categories ?? [];
+  const page = data?.page ?? params.page ?? 1;
+  const pageSize = data?.pageSize ?? params.pageSize ?? 25;
+  const total = data?.total ?? 0;
+  const pageCount = Math.max(1, Math.ceil(total / pageSize));
+  const first = total === 0 ? 0 : (page - 1) * pageSize + 1;
+  const last = Math.min(total, page * pageSize);
+
+  let body: ReactNode;
+  if (parts.isPending) {
+    body = <LoadingState label="Loading the catalogue…" />;
+  } else if (parts.isError) {
+    body = <ErrorState message={errorMessage(parts.error)} onRetry={() => void parts.refetch()} />;
+  } else if (parts.data.items.length === 0 && !filtered && page === 1) {
+    body = (
+      <EmptyState title="The catalogue is empty" action={emptyActions}>
+        Add parts one by one with their numbers as printed, or import a CSV file of parts, then a file of the links between their
+        numbers.
+        {!emptyActions && ' Ask the owner or the parts buyer to add parts or import a file.'}
+      </EmptyState>
+    );
+  } else if (parts.data.items.length === 0) {
+    body = (
+      <EmptyState
+        title="No parts match these filters"
+        action={
+          <Button variant="secondary" onClick={onClear}>
+            Clear filters
+          </Button>
+        }
+      >
+        Try fewer words, part of the number, or another category.
+      </EmptyState>
+    );
+  } else {
+    body = (
+      <div className="flex flex-col gap-3" aria-busy={parts.isPlaceholderData || undefined}>
+        <DataTable
+          caption="Parts in the catalogue"
+          columns={columns}
+          data={parts.data.items}
+          getRowId={(row) => row.id}
+          pageSize={pageSize}
+          // The API pages this list; the table's own "Rows x–y" line would count one page only.
+          className="[&>div:last-child]:hidden"
+        />
+        <nav aria-label="Pages of the catalogue" className="flex flex-wrap items-center justify-between gap-3">
+          <p className="text-ink-muted" role="status">
+            Parts {first}–{last} of {total}
+          </p>
+          {pageCount > 1 && (
+            <div className="flex items-center gap-2">
+              <Button variant="secondary" size="sm" disabled={page <= 1} onClick={() => onChange({ page: page - 1 })}>
+                Previous page
+              </Button>
+              <span className="tabular">
+                Page {page} of {pageCount}
+              </span>
+              <Button variant="secondary" size="sm" disabled={page >= pageCount} onClick={() => onChange({ page: page + 1 })}>
+                Next page
+              </Button>
+            </div>
+          )}
+        </nav>
+      </div>
+    );
+  }
+
+  return (
+    <div className="flex flex-col gap-4">
+      <CatalogueFilters params={params} categories={categories} onChange={onChange} onClear={onClear} filtered={filtered} />
+      {body}
+    </div>
+  );
+}

@@ -1,0 +1,156 @@
+import type { PartSearchResult } from '@tappet/contracts';
+import { act, fireEvent, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { installFakeApi, ownerOfA, shopA, type RecordedRequest } from '../../../testing/fake-api';
+import { renderApp } from '../../../testing/render-app';
+import { recentLookupsKey } from '../hooks/use-recent-lookups';
+
+const slow = { timeout: 5000 };
+const partId = 'aaaaaaaa-0000-4000-8000-00000000000a';
+const otherId = 'aaaaaaaa-0000-4000-8000-00000000000b';
+const me = ownerOfA();
+
+const result = (overrides: Partial<PartSearchResult> = {}): PartSearchResult => ({
+  id: partId,
+  number: '71-3456',
+  description: 'Clutch cable, inner',
+  origin: 'genuine',
+  category: 'Controls',
+  status: 'available',
+  match: 'fuzzy',
+  reason: 'close to 71-3456 (1 typo)',
+  ...overrides,
+});
+
+/** The fake API: `answer(q)` gives the lookup's results; everything else the app needs at start. */
+function install(answer: (q: string) => { status?: number; body?: unknown }) {
+  const base: Record<string, (r: RecordedRequest) => { status?: number; body?: unknown }> = {
+    'GET /me': () => ({ body: me }),
+    [`GET /shops/${shopA}`]: () => ({ body: { id: shopA, name: 'Harbour Works', slug: 'harbour-works', createdAt: '2024-03-01T09:00:00.000Z' } }),
+    [`GET /shops/${shopA}/parts/search`]: (r) => answer(new URLSearchParams(r.path.split('?')[1]).get('q') ?? ''),
+  };
+  const routes = new Proxy(base, { get: (target, key) => (typeof key === 'string' ? (target[key] ?? target[key.split('?')[0] ?? key]) : undefined) });
+  return installFakeApi(routes);
+}
+
+const searches = (requests: RecordedRequest[]) => requests.filter((r) => r.path.startsWith(`/shops/${shopA}/parts/search`)).map((r) => new URLSearchParams(r.path.split('?')[1]).get('q'));
+
+beforeEach(() => localStorage.clear());
+afterEach(() => vi.unstubAllGlobals());
+
+describe('the lookup screen', () => {
+  it('focuses the field, shows results as you type with the reason, and opens the highlighted part with the keyboard', async () => {
+    const user = userEvent.setup();
+    const { requests } = install((q) => ({ body: { results: q ? [result(), result({ id: otherId, number: '71-3465', description: 'Brake light switch', match: 'fuzzy', reason: 'close to 71-3465 (1 typo)', status: 'nla', origin: 'pattern' })] : [] } }));
+    const { router } = renderApp(`/shops/${shopA}/lookup`);
+    const field = await screen.findByRole('combobox', { name: 'Look up a part' }, slow);
+    await waitFor(() => expect(field).toHaveFocus());
+    await user.type(field, '71-4356');
+    const list = await screen.findByRole('listbox', { name: 'Lookup results' }, slow);
+    const [first, second] = within(list).getAllByRole('option');
+    expect(first).toHaveTextContent('71-3456');
+    expect(first).toHaveTextContent('close to 71-3456 (1 typo)');
+    expect(first).toHaveAttribute('aria-selected', 'true');
+    expect(second).toHaveTextContent('Pattern');
+    expect(second).toHaveTextContent('No longer available');
+    // Debounced: one request for the whole number, not one per key.
+    expect(searches(requests)).toEqual(['71-4356']);
+
+    await user.keyboard('{ArrowDown}');
+    expect(second).toHaveAttribute('aria-selected', 'true');
+    expect(field).toHaveAttribute('aria-activedescendant', second!.id);
+    await user.keyboard('{Enter}');
+    await waitFor(() => expect(router.state.location.pathname).toBe(`/shops/${shopA}/catalogue/${otherId}`));
+    expect(JSON.parse(localStorage.getItem(recentLookupsKey(me.user.id, shopA))!)).toEqual([{ partId: otherId, number: '71-3465', description: 'Brake light switch', query: '71-4356' }]);
+  });
+
+  it('keeps the previous results on screen while the next answer loads', async () => {
+    const user = userEvent.setup();
+    let release: () => void = () => undefined;
+    install((q) => (q === '71-3' ? { body: { results: [result({ match: 'partial', reason: 'number starts with 713' })] } } : { body: { results: [] } }));
+    renderApp(`/shops/${shopA}/lookup`);
+    const field = await screen.findByRole('combobox', { name: 'Look up a part' }, slow);
+    await user.type(field, '71-3');
+    await screen.findByText('number starts with 713', {}, slow);
+    install(
+      () =>
+        new Promise((resolve) => {
+          release = () => resolve({ body: { results: [] } });
+        }) as never,
+    );
+    await user.type(field, '9');
+    await waitFor(() => expect(field).toHaveValue('71-39'));
+    // Past the debounce, the new request is in flight: the old row is still shown.
+    await act(() => new Promise((r) => setTimeout(r, 250)));
+    expect(screen.getByText('number starts with 713')).toBeInTheDocument();
+    release();
+    await screen.findByText('Nothing matches “71-39”', {}, slow);
+  });
+
+  it('opens an exact hit at once when a scanner types the code and Enter', async () => {
+    const { requests } = install((q) => ({ body: { results: q === 'VX880' ? [result({ number: 'VX/880', match: 'exact', reason: 'exact number' })] : [] } }));
+    const { router } = renderApp(`/shops/${shopA}/lookup`);
+    const field = await screen.findByRole('combobox', { name: 'Look up a part' }, slow);
+    // A scanner: every key within a few milliseconds, then Enter (before any debounce fires).
+    for (const key of 'VX880') {
+      fireEvent.keyDown(field, { key });
+      fireEvent.change(field, { target: { value: `${(field as HTMLInputElement).value}${key}` } });
+    }
+    fireEvent.keyDown(field, { key: 'Enter' });
+    await waitFor(() => expect(router.state.location.pathname).toBe(`/shops/${shopA}/catalogue/${partId}`));
+    expect(searches(requests)).toContain('VX880');
+  });
+
+  it('does not open a scanned code that only matches loosely', async () => {
+    install(() => ({ body: { results: [result()] } }));
+    const { router } = renderApp(`/shops/${shopA}/lookup`);
+    const field = await screen.findByRole('combobox', { name: 'Look up a part' }, slow);
+    for (const key of '714356') {
+      fireEvent.keyDown(field, { key });
+      fireEvent.change(field, { target: { value: `${(field as HTMLInputElement).value}${key}` } });
+    }
+    fireEvent.keyDown(field, { key: 'Enter' });
+    await screen.findByRole('listbox', { name: 'Lookup results' }, slow);
+    expect(router.state.location.pathname).toBe(`/shops/${shopA}/lookup`);
+  });
+
+  it('comes back to the field on "/", and says when nothing matches or the lookup failed', async () => {
+    const user = userEvent.setup();
+    install((q) => (q === 'boom' ? { status: 500, body: { error: { code: 'internal', message: 'The server had a problem.' } } } : { body: { results: [] } }));
+    renderApp(`/shops/${shopA}/lookup`);
+    const field = await screen.findByRole('combobox', { name: 'Look up a part' }, slow);
+    await user.type(field, 'zz-99');
+    await screen.findByText('Nothing matches “zz-99”', {}, slow);
+    field.blur();
+    await user.keyboard('/');
+    expect(field).toHaveFocus();
+    expect(field).toHaveValue('zz-99');
+    await user.clear(field);
+    await user.type(field, 'boom');
+    const alert = await screen.findByRole('alert', {}, slow);
+    expect(alert).toHaveTextContent('The lookup failed');
+    expect(within(alert).getByRole('button', { name: 'Try again' })).toBeInTheDocument();
+  });
+
+  it('lists this person’s recent lookups in this shop when the field is empty', async () => {
+    const user = userEvent.setup();
+    localStorage.setItem(recentLookupsKey(me.user.id, shopA), JSON.stringify([{ partId, number: '71-3456', description: 'Clutch cable, inner', query: '3456' }, { bogus: true }]));
+    localStorage.setItem(recentLookupsKey('someone-else', shopA), JSON.stringify([{ partId: otherId, number: '99-0000', description: 'Not mine', query: '99' }]));
+    install(() => ({ body: { results: [] } }));
+    const { router } = renderApp(`/shops/${shopA}/lookup`);
+    const recent = await screen.findByRole('region', { name: 'Recent lookups' }, slow);
+    expect(within(recent).getAllByRole('link')).toHaveLength(1);
+    expect(recent).toHaveTextContent('typed “3456”');
+    expect(screen.queryByText('Not mine')).not.toBeInTheDocument();
+    await user.click(within(recent).getByRole('link', { name: /71-3456/ }));
+    await waitFor(() => expect(router.state.location.pathname).toBe(`/shops/${shopA}/catalogue/${partId}`));
+  });
+
+  it('puts Lookup first in the rail', async () => {
+    install(() => ({ body: { results: [] } }));
+    renderApp(`/shops/${shopA}/lookup`);
+    const nav = await screen.findByRole('navigation', {}, slow);
+    expect(within(nav).getAllByRole('link')[0]).toHaveTextContent('Lookup');
+  });
+});

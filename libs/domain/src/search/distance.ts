@@ -1,0 +1,75 @@
+/**
+ * Edit distance for part numbers typed at the bench. Optimal string alignment (the restricted
+ * Damerau–Levenshtein distance): insertions, deletions, substitutions and transpositions of two
+ * neighbouring characters each cost 1, and no substring is edited twice. That is the distance
+ * people mean by "one typo", and it can be cut off early once it exceeds a bound.
+ */
+
+/** Letters that are read for digits on stamped and worn parts: O for zero, I for one. */
+const LOOKALIKES: Readonly<Record<string, string>> = { O: '0', I: '1' };
+
+/**
+ * Folds the letters O and I onto the digits 0 and 1 in a normalised key, so "7I-3O56" and
+ * "71-3056" compare equal. Apply to keys from `normalisePartNumber` (upper case).
+ */
+export function foldLookalikes(key: string): string {
+  return key.replace(/[OI]/g, (c) => LOOKALIKES[c] ?? c);
+}
+
+/**
+ * Optimal string alignment distance between `a` and `b` (no folding). With `max`, stops as soon
+ * as the answer must exceed it and returns `max + 1`; without it the exact distance.
+ */
+export function osaDistance(a: string, b: string, max = Number.POSITIVE_INFINITY): number {
+  if (a === b) return 0;
+  const n = a.length;
+  const m = b.length;
+  if (Math.abs(n - m) > max) return max + 1;
+  if (n === 0) return m;
+  if (m === 0) return n;
+  // Three rolling rows: two back for transpositions, one back and the current one.
+  let before = new Array<number>(m + 1).fill(0);
+  let previous = Array.from({ length: m + 1 }, (_, j) => j);
+  let current = new Array<number>(m + 1).fill(0);
+  for (let i = 1; i <= n; i++) {
+    current[0] = i;
+    let rowMin = i;
+    const ai = a.charCodeAt(i - 1);
+    for (let j = 1; j <= m; j++) {
+      const bj = b.charCodeAt(j - 1);
+      const cost = ai === bj ? 0 : 1;
+      let value = Math.min(previous[j]! + 1, current[j - 1]! + 1, previous[j - 1]! + cost);
+      if (i > 1 && j > 1 && ai === b.charCodeAt(j - 2) && a.charCodeAt(i - 2) === bj) value = Math.min(value, before[j - 2]! + 1);
+      current[j] = value;
+      if (value < rowMin) rowMin = value;
+    }
+    if (rowMin > max) return max + 1;
+    [before, previous, current] = [previous, current, before];
+  }
+  const result = previous[m]!;
+  return result > max ? max + 1 : result;
+}
+
+/**
+ * The typo distance between two normalised part-number keys: optimal string alignment after
+ * folding O→0 and I→1 on both. Symmetric; 0 exactly when the folded keys are equal; never more
+ * than the longer key's length.
+ */
+export function partNumberDistance(a: string, b: string, max?: number): number {
+  return osaDistance(foldLookalikes(a), foldLookalikes(b), max);
+}
+
+/** How many typos a key of this length forgives: 1 under 8 characters, 2 from 8 on. */
+export function typoTolerance(length: number): number {
+  return length < 8 ? 1 : 2;
+}
+
+/**
+ * Whether `typed` is within the typo tolerance of the catalogue key `key` (tolerance taken from the
+ * catalogue key's length). Returns the distance, or null when it is too far.
+ */
+export function typosWithin(typed: string, key: string): number | null {
+  const tolerance = typoTolerance(key.length);
+  const d = partNumberDistance(typed, key, tolerance);
+  return d <= tolerance ? d : null;
+}
