@@ -163,7 +163,11 @@ export function ApiKeysScreen({ shopId, myName }: { shopId: string; myName: stri
       }),
       column.display({
         id: 'actions',
-        header: () => <span className="sr-only">Actions</span>,
+        header: () => (
+          <span className="relative">
+            <span className="sr-only">Actions</span>
+          </span>
+        ),
         cell: (info) =>
           info.row.original.revokedAt ? null : (
             <Button variant="secondary" size="sm" aria-label={`Revoke “${info.row.original.label}”`} onClick={() => setRevoking(info.row.original)}>

@@ -28,7 +28,8 @@ function Changes({ changes }: { changes: AuditEventView['changes'] }) {
   const entries = Object.entries(changes);
   if (entries.length === 0) return <span className="text-ink-muted">No fields recorded</span>;
   return (
-    <ul className="flex flex-col gap-1">
+    // Relative: the visually hidden words must stay inside the table's scroll box, or they widen the page.
+    <ul className="relative flex flex-col gap-1">
       {entries.map(([field, { before, after }]) => (
         <li key={field} className="break-words">
           <span className="font-bold">{fieldWords(field)}</span>: <span className="font-mono">{showValue(before)}</span> <span aria-hidden="true">→</span>{' '}
@@ -50,7 +51,7 @@ export function AuditLog({ shopId, filters, page, onChange, actors, pageSize = 5
       column.accessor('createdAt', {
         header: 'When',
         cell: (info) => (
-          <time dateTime={info.getValue()} className="whitespace-nowrap">
+          <time dateTime={info.getValue()}>
             {dateTime.format(new Date(info.getValue()))}
           </time>
         ),
@@ -68,7 +69,10 @@ export function AuditLog({ shopId, filters, page, onChange, actors, pageSize = 5
                 {e.entityId && (
                   <>
                     {' '}
-                    <PartNumber className="text-sm break-all whitespace-normal">{e.entityId}</PartNumber>
+                    {/* The first 8 characters tell records apart on screen; the CSV and the tooltip carry the whole id. */}
+                    <span title={e.entityId}>
+                      <PartNumber className="text-sm">{e.entityId.length > 12 ? `${e.entityId.slice(0, 8)}…` : e.entityId}</PartNumber>
+                    </span>
                   </>
                 )}
               </span>

@@ -80,7 +80,11 @@ export function StaffScreen({ shopId, currency, myUserId }: StaffScreenProps) {
       }),
       memberColumn.display({
         id: 'actions',
-        header: () => <span className="sr-only">Actions</span>,
+        header: () => (
+          <span className="relative">
+            <span className="sr-only">Actions</span>
+          </span>
+        ),
         cell: (info) => {
           const m = info.row.original;
           const items = m.isActive
@@ -115,7 +119,11 @@ export function StaffScreen({ shopId, currency, myUserId }: StaffScreenProps) {
       }),
       invitationColumn.display({
         id: 'actions',
-        header: () => <span className="sr-only">Actions</span>,
+        header: () => (
+          <span className="relative">
+            <span className="sr-only">Actions</span>
+          </span>
+        ),
         cell: (info) => {
           const i = info.row.original;
           return (
