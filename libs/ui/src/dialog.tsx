@@ -178,3 +178,25 @@ export function ConfirmDialog({
     />
   );
 }
+
+export interface FormDialogFooterProps {
+  /** The id of the `<form>` inside the dialog that the submit button sends. */
+  formId: string;
+  submitLabel: string;
+  loading?: boolean;
+  onCancel: () => void;
+}
+
+/** The footer of a dialog that holds a form: Cancel, then the submit button for that form. */
+export function FormDialogFooter({ formId, submitLabel, loading = false, onCancel }: FormDialogFooterProps) {
+  return (
+    <>
+      <Button variant="secondary" onClick={onCancel}>
+        Cancel
+      </Button>
+      <Button type="submit" form={formId} loading={loading}>
+        {submitLabel}
+      </Button>
+    </>
+  );
+}

@@ -1,5 +1,5 @@
 import { fitmentInputSchema, fitmentUpdateSchema, type Fitment } from '@tappet/contracts';
-import { Button, Dialog, FormMessage, TextField, useToast } from '@tappet/ui';
+import { Dialog, FormMessage, TextField, useToast, FormDialogFooter } from '@tappet/ui';
 import { useId, useRef, type FormEvent } from 'react';
 import { formValues, useFormErrors, zodFieldErrors } from '../../../lib/forms';
 import { useCreateFitment } from '../api/create-fitment';
@@ -65,16 +65,7 @@ export function FitmentFormDialog({ shopId, partId, partNumber, open, onClose, f
       title={fitment ? 'Edit the fitment' : `What does ${partNumber} fit?`}
       description="Frame numbers only where the part changed during a model's run."
       className="max-w-2xl"
-      footer={
-        <>
-          <Button variant="secondary" onClick={onClose}>
-            Cancel
-          </Button>
-          <Button type="submit" form={formId} loading={create.isPending || update.isPending}>
-            {fitment ? 'Save fitment' : 'Add fitment'}
-          </Button>
-        </>
-      }
+      footer={<FormDialogFooter formId={formId} submitLabel={fitment ? 'Save fitment' : 'Add fitment'} loading={create.isPending || update.isPending} onCancel={onClose} />}
     >
       <form id={formId} ref={formRef} noValidate onSubmit={onSubmit} className="grid grid-cols-1 gap-4 sm:grid-cols-2">
         {errors.formError && (

@@ -1,5 +1,5 @@
 import { interchanges, linkInputSchema, linkKinds, linkUpdateSchema, type Part, type PartLink } from '@tappet/contracts';
-import { Button, Dialog, FormMessage, PartNumber, Select, TextField, useToast } from '@tappet/ui';
+import { Dialog, FormMessage, PartNumber, Select, TextField, useToast, FormDialogFooter } from '@tappet/ui';
 import { useId, useRef, useState, type FormEvent } from 'react';
 import { formValues, useFormErrors, zodFieldErrors } from '../../../lib/forms';
 import { useCreateLink, type LinkInput } from '../api/create-link';
@@ -108,16 +108,7 @@ export function LinkFormDialog({ shopId, open, onClose, from, link }: LinkFormDi
       onClose={onClose}
       title={link ? 'Edit the link' : `Link ${from.number} to another part`}
       className="max-w-2xl"
-      footer={
-        <>
-          <Button variant="secondary" onClick={onClose}>
-            Cancel
-          </Button>
-          <Button type="submit" form={formId} loading={create.isPending || update.isPending}>
-            {link ? 'Save link' : 'Add link'}
-          </Button>
-        </>
-      }
+      footer={<FormDialogFooter formId={formId} submitLabel={link ? 'Save link' : 'Add link'} loading={create.isPending || update.isPending} onCancel={onClose} />}
     >
       <form id={formId} ref={formRef} noValidate onSubmit={onSubmit} className="grid grid-cols-1 gap-4 sm:grid-cols-2">
         {errors.formError && (

@@ -1,5 +1,5 @@
 import { partInputSchema, partOrigins, partStatuses, type Part, type PartInput } from '@tappet/contracts';
-import { Button, Dialog, FormMessage, Select, TextField, useToast } from '@tappet/ui';
+import { Dialog, FormMessage, Select, TextField, useToast, FormDialogFooter } from '@tappet/ui';
 import { useId, useRef, type FormEvent } from 'react';
 import { formValues, useFormErrors, zodFieldErrors } from '../../../lib/forms';
 import { useCreatePart } from '../api/create-part';
@@ -76,16 +76,7 @@ export function PartFormDialog({ shopId, open, onClose, part, categories = [], o
       title={part ? `Edit ${part.number}` : 'Add a part'}
       description="The number as printed in the parts book or on the part; separators are kept."
       className="max-w-2xl"
-      footer={
-        <>
-          <Button variant="secondary" onClick={onClose}>
-            Cancel
-          </Button>
-          <Button type="submit" form={formId} loading={create.isPending || update.isPending}>
-            {part ? 'Save part' : 'Add part'}
-          </Button>
-        </>
-      }
+      footer={<FormDialogFooter formId={formId} submitLabel={part ? 'Save part' : 'Add part'} loading={create.isPending || update.isPending} onCancel={onClose} />}
     >
       <form id={formId} ref={formRef} noValidate onSubmit={onSubmit} className="grid grid-cols-1 gap-4 sm:grid-cols-2">
         {errors.formError && (
