@@ -1,6 +1,6 @@
 /* eslint-disable @nx/enforce-module-boundaries -- the seed writes through the API's own data layer
    (entities, migrations, write lock); see docs/decisions/002-module-boundaries.md. */
-import { randomUUID } from 'node:crypto';
+import { createHash, randomBytes, randomUUID } from 'node:crypto';
 import type { DataSource } from 'typeorm';
 import type { ShopRole } from '@tappet/contracts';
 import { databaseFor, type Database } from '../apps/api/src/db/write-lock';
@@ -8,6 +8,9 @@ import { hashPassword } from '../apps/api/src/lib/password';
 import { recordAudit } from '../apps/api/src/modules/audit/audit.service';
 import { insertMembership, insertShop } from '../apps/api/src/modules/shops/shops.service';
 import { UserEntity } from '../apps/api/src/modules/users/users.entity';
+import { InvitationEntity } from '../apps/api/src/modules/staff/staff.entity';
+import { invitationTtlMs } from '../apps/api/src/modules/staff/staff.service';
+import { ApiKeyEntity } from '../apps/api/src/modules/api-keys/api-keys.entity';
 import { seedCatalogueDemo } from './catalogue-demo';
 
 /** The demo password of every demo account. Public by design: never use it for real data. */
@@ -51,8 +54,10 @@ export async function seedDemo(source: DataSource | Database, at: Date = new Dat
       harbour: await insertShop(manager, { name: 'Harbour Works', slug: 'harbour-works', at, actor }),
       brackenfold: await insertShop(manager, { name: 'Brackenfold Garage', slug: 'brackenfold-garage', at, actor }),
     };
+    const userIds = new Map<string, string>();
     for (const [i, person] of people.entries()) {
       const id = randomUUID();
+      userIds.set(person.email, id);
       await manager.insert(UserEntity, { id, email: person.email, name: person.name, passwordHash: hashes[i]!, isPlatformAdmin: person.platformAdmin ?? false, isActive: true, createdAt: at });
       await recordAudit(manager, { shopId: null, actor, action: 'user.created', entity: 'user', entityId: id, changes: { email: { before: null, after: person.email } }, at });
       for (const m of person.memberships) {
@@ -60,6 +65,45 @@ export async function seedDemo(source: DataSource | Database, at: Date = new Dat
       }
     }
     await seedCatalogueDemo(manager, { harbour: shops.harbour.id, brackenfold: shops.brackenfold.id }, at);
+
+    // Shop administration: an invitation still open (the owner can resend it, and the new link
+    // lands in the mail sink) and an API key for an invented integration. Neither token is known
+    // to anyone: only their hashes are stored, as for real ones.
+    const ownerId = userIds.get('owner@harbour-works.test')!;
+    const ownerActor = { userId: ownerId, ip: null };
+    const sha256 = (bytes: Buffer) => createHash('sha256').update(bytes.toString('base64url')).digest('hex');
+    const invitation = {
+      id: randomUUID(),
+      shopId: shops.harbour.id,
+      email: 'counter@harbour-works.test',
+      role: 'viewer' as const,
+      spendingLimitMinor: null,
+      tokenHash: sha256(randomBytes(32)),
+      invitedByUserId: ownerId,
+      createdAt: at,
+      sentAt: at,
+      expiresAt: new Date(at.getTime() + invitationTtlMs),
+      acceptedAt: null,
+      acceptedUserId: null,
+      withdrawnAt: null,
+    };
+    await manager.insert(InvitationEntity, invitation);
+    await recordAudit(manager, { shopId: shops.harbour.id, actor: ownerActor, action: 'invitation.created', entity: 'invitation', entityId: invitation.id, changes: { email: { before: null, after: invitation.email }, role: { before: null, after: 'viewer' } }, at });
+    const key = {
+      id: randomUUID(),
+      shopId: shops.harbour.id,
+      label: 'Stock level feed',
+      role: 'viewer' as const,
+      secretHash: sha256(randomBytes(32)),
+      createdByUserId: ownerId,
+      boundUserId: null,
+      integrationName: 'Counter display board',
+      createdAt: at,
+      lastUsedAt: null,
+      revokedAt: null,
+    };
+    await manager.insert(ApiKeyEntity, key);
+    await recordAudit(manager, { shopId: shops.harbour.id, actor: ownerActor, action: 'api_key.created', entity: 'api_key', entityId: key.id, changes: { label: { before: null, after: key.label }, role: { before: null, after: 'viewer' } }, at });
   });
   return true;
 }

@@ -37,6 +37,18 @@ describe('the demo seed', () => {
     expect(res.body.activeShopId).toBe(owned.shopId);
   });
 
+  it('shows shop administration alive: an open invitation, an API key and their audit entries', async () => {
+    const agent = request.agent(ctx.app);
+    const res = await agent.post('/api/auth/sign-in').set(csrf).send({ email: 'owner@harbour-works.test', password: demoPassword });
+    const shopId = res.body.activeShopId as string;
+    const staff = await agent.get(`/api/shops/${shopId}/staff`).expect(200);
+    expect(JSON.stringify(staff.body)).toContain('counter@harbour-works.test');
+    const keys = await agent.get(`/api/shops/${shopId}/api-keys`).expect(200);
+    expect(keys.body.keys.map((k: { label: string }) => k.label)).toContain('Stock level feed');
+    const audit = await agent.get(`/api/shops/${shopId}/audit-events?entity=invitation`).expect(200);
+    expect(JSON.stringify(audit.body)).toContain('invitation.created');
+  });
+
   it('gives the buyer a 500.00 spending limit', async () => {
     const res = await signIn('buyer@harbour-works.test');
     expect(res.body.memberships[0].spendingLimitMinor).toBe(50_000);
