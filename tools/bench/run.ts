@@ -33,8 +33,10 @@ The lineage rows at 10k, 50k and 200k parts show how building and resolving scal
 linear in parts + links; a resolve touches only the part's own neighbourhood, so its time should
 stay flat as the catalogue grows.
 
-Search, import, HTTP throughput and the reorder list join this page with their issues (lookup,
-stock, purchasing, performance).
+The lookup benchmark (200,000 parts, 60,000 links, 1,000 typo queries against a plain fuse.js
+scan of the whole catalogue) runs on its own for now: \`npx tsx tools/bench/lookup-bench.ts\`
+prints its figures as JSON. Import, HTTP throughput and the reorder list join this page with the
+performance issue.
 `;
 writeFileSync(new URL('../../docs/performance.md', import.meta.url), doc);
 console.log(doc);
