@@ -2,11 +2,14 @@ import { defineConfig, devices } from '@playwright/test';
 
 // Browser tests drive Debian's Chromium (Playwright's own browser download cannot work here).
 // The stack runs on its own ports with a throw-away data folder, so a running demo is untouched.
-export const e2ePorts = { app: 3100, smtp: 1125, sinkHttp: 1180 } as const;
+// E2E_PORT_BASE moves all three ports (app = base, SMTP = base − 1975, mail-sink HTTP = base − 1920),
+// so two browser runs on one machine do not clash.
+const base = Number(process.env.E2E_PORT_BASE ?? 3100);
+export const e2ePorts = { app: base, smtp: base - 1975, sinkHttp: base - 1920 } as const;
 
 export default defineConfig({
   testDir: './tests',
-  outputDir: '../../test-results/e2e',
+  outputDir: `../../test-results/e2e-${base}`,
   fullyParallel: true,
   workers: process.env.CI ? 2 : 2,
   retries: 0,
