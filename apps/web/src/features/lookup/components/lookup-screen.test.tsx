@@ -29,6 +29,7 @@ function install(answer: (q: string) => { status?: number; body?: unknown }) {
     'GET /me': () => ({ body: me }),
     [`GET /shops/${shopA}`]: () => ({ body: { id: shopA, name: 'Harbour Works', slug: 'harbour-works', createdAt: '2024-03-01T09:00:00.000Z' } }),
     [`GET /shops/${shopA}/parts/search`]: (r) => answer(new URLSearchParams(r.path.split('?')[1]).get('q') ?? ''),
+    [`GET /shops/${shopA}/parts`]: () => ({ body: { items: [], total: 0, page: 1, pageSize: 1, categories: ['Brakes', 'Controls'] } }),
   };
   const routes = new Proxy(base, { get: (target, key) => (typeof key === 'string' ? (target[key] ?? target[key.split('?')[0] ?? key]) : undefined) });
   return installFakeApi(routes);
@@ -63,6 +64,56 @@ describe('the lookup screen', () => {
     await user.keyboard('{Enter}');
     await waitFor(() => expect(router.state.location.pathname).toBe(`/shops/${shopA}/catalogue/${otherId}`));
     expect(JSON.parse(localStorage.getItem(recentLookupsKey(me.user.id, shopA))!)).toEqual([{ partId: otherId, number: '71-3465', description: 'Brake light switch', query: '71-4356' }]);
+  });
+
+  it('narrows the lookup to a vehicle, a category and an origin, keeps the filters in the URL and clears them', async () => {
+    const user = userEvent.setup();
+    const base = install((q) => ({ body: { results: q ? [result()] : [] } }));
+    const { router } = renderApp(`/shops/${shopA}/lookup`);
+    const field = await screen.findByRole('combobox', { name: 'Look up a part' }, slow);
+    await user.click(screen.getByRole('button', { name: 'Narrow down' }));
+    const form = screen.getByRole('search', { name: 'Narrow the lookup' });
+    await user.type(within(form).getByRole('textbox', { name: 'Marque' }), 'Corran');
+    await user.type(within(form).getByRole('textbox', { name: 'Year' }), '19');
+    await user.click(within(form).getByRole('button', { name: 'Apply' }));
+    // A half-typed year is refused with a reason; nothing is applied and the form stays open.
+    expect(await within(form).findByText('Give a year like 1968 (1880 to 2100).')).toBeInTheDocument();
+    expect(router.state.location.search).toBe('');
+    await user.type(within(form).getByRole('textbox', { name: 'Year' }), '68');
+    await user.selectOptions(within(form).getByRole('combobox', { name: 'Origin' }), 'Genuine');
+    await user.selectOptions(await within(form).findByRole('combobox', { name: 'Category' }), await within(form).findByRole('option', { name: 'Brakes' }));
+    await user.click(within(form).getByRole('textbox', { name: 'Model' }));
+    await user.keyboard('{Enter}');
+    await waitFor(() => expect(screen.queryByRole('search', { name: 'Narrow the lookup' })).not.toBeInTheDocument());
+    expect(new URLSearchParams(router.state.location.search).get('marque')).toBe('Corran');
+    expect(screen.getByText('Fits Corran 1968 · Brakes · Genuine')).toBeInTheDocument();
+    expect(screen.getByRole('button', { name: 'Narrowed (4)' })).toBeInTheDocument();
+
+    await user.type(field, 'clutch');
+    await screen.findByRole('listbox', { name: 'Lookup results' }, slow);
+    const sent = base.requests.filter((r) => r.path.startsWith(`/shops/${shopA}/parts/search`)).map((r) => new URLSearchParams(r.path.split('?')[1]));
+    expect(sent.at(-1)?.get('q')).toBe('clutch');
+    expect(sent.at(-1)?.get('marque')).toBe('Corran');
+    expect(sent.at(-1)?.get('year')).toBe('1968');
+    expect(sent.at(-1)?.get('origin')).toBe('genuine');
+    expect(sent.at(-1)?.get('category')).toBe('Brakes');
+    expect(sent.at(-1)?.has('model')).toBe(false);
+
+    await user.click(screen.getByRole('button', { name: 'Clear' }));
+    await waitFor(() => expect(router.state.location.search).toBe(''));
+    await waitFor(() => expect(base.requests.filter((r) => r.path.startsWith(`/shops/${shopA}/parts/search`)).at(-1)?.path).not.toContain('marque'));
+  });
+
+  it('ignores filter values in a link that the API would refuse', async () => {
+    const user = userEvent.setup();
+    const { requests } = install((q) => ({ body: { results: q ? [result()] : [] } }));
+    renderApp(`/shops/${shopA}/lookup?year=19x&origin=stolen&marque=Velmark`);
+    const field = await screen.findByRole('combobox', { name: 'Look up a part' }, slow);
+    expect(screen.getByText('Fits Velmark')).toBeInTheDocument();
+    await user.type(field, 'hub');
+    await screen.findByRole('listbox', { name: 'Lookup results' }, slow);
+    const sent = new URLSearchParams(requests.filter((r) => r.path.includes('/parts/search')).at(-1)!.path.split('?')[1]);
+    expect([sent.get('marque'), sent.get('year'), sent.get('origin')]).toEqual(['Velmark', null, null]);
   });
 
   it('keeps the previous results on screen while the next answer loads', async () => {

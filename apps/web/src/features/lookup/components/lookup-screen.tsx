@@ -9,6 +9,8 @@ import { searchPartsQueryOptions, useSearchParts } from '../api/search-parts';
 import { useDebouncedValue } from '../hooks/use-debounced-value';
 import { useRecentLookups, type RecentLookup } from '../hooks/use-recent-lookups';
 import { useScannerInput } from '../hooks/use-scanner-input';
+import { useLookupFilters } from '../hooks/use-lookup-filters';
+import { LookupFiltersPanel } from './lookup-filters';
 
 /** Typing pauses this long before a lookup is sent. */
 export const LOOKUP_DEBOUNCE_MS = 150;
@@ -36,7 +38,8 @@ export function LookupScreen({ shopId, userId }: { shopId: string; userId: strin
   const [active, setActive] = useState({ q: '', index: 0 });
   const [opening, setOpening] = useState(false);
   const q = useDebouncedValue(text.trim(), LOOKUP_DEBOUNCE_MS);
-  const search = useSearchParts(shopId, q);
+  const { filters, setFilters, count: filterCount } = useLookupFilters();
+  const search = useSearchParts(shopId, q, filters);
   const recent = useRecentLookups(userId, shopId);
   const scanner = useScannerInput();
 
@@ -72,7 +75,7 @@ export function LookupScreen({ shopId, userId }: { shopId: string; userId: strin
     if (typed !== q || !search.data || search.isPlaceholderData) {
       setOpening(true);
       try {
-        answer = (await queryClient.fetchQuery(searchPartsQueryOptions(shopId, typed))).results;
+        answer = (await queryClient.fetchQuery(searchPartsQueryOptions(shopId, typed, filters))).results;
       } catch {
         // The query on screen shows the error once the debounce catches up.
         return;
@@ -140,6 +143,7 @@ export function LookupScreen({ shopId, userId }: { shopId: string; userId: strin
         <p id={`${listId}-hint`} className="text-ink-muted">
           Typos, missing prefixes and separators are forgiven. Arrow keys choose, Enter opens, “/” comes back here.
         </p>
+        <LookupFiltersPanel shopId={shopId} filters={filters} count={filterCount} onChange={setFilters} />
       </div>
 
       <p role="status" className="sr-only">
@@ -157,7 +161,9 @@ export function LookupScreen({ shopId, userId }: { shopId: string; userId: strin
           {search.isError && <ErrorState title="The lookup failed" message={errorMessage(search.error)} onRetry={() => void search.refetch()} />}
           {results.length === 0 ? (
             <EmptyState title={`Nothing matches “${q}”`}>
-              Check the number against the part, leave out the prefix, or describe it in words (for example “clutch cable”).
+              {filterCount > 0
+                ? 'Nothing matches within the filters. Clear them to look through the whole catalogue.'
+                : 'Check the number against the part, leave out the prefix, or describe it in words (for example “clutch cable”).'}
             </EmptyState>
           ) : (
             <ul id={`${listId}-results`} role="listbox" aria-label="Lookup results" className={cn('flex flex-col divide-y divide-line rounded-lg border border-line bg-surface', search.isPlaceholderData && 'opacity-80')}>
