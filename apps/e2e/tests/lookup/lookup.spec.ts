@@ -57,3 +57,38 @@ test('a scanned code followed by Enter opens the exact part directly', async ({ 
   await page.keyboard.press('Enter');
   await expect(page).toHaveURL(new RegExp(`/shops/${shopId}/catalogue/${wanted.id}$`));
 });
+
+test('narrowing the lookup to a vehicle leaves out parts that do not fit it, and the link keeps the filter', async ({ page }) => {
+  const shop = await createTestShop({ roles: ['owner'] });
+  const shopId = shop.shop.id;
+  await signIn(page.request, userWithRole(shop, 'owner').email, shop.password);
+  const corran = await addPart(page.request, shopId, { number: '40-1100', description: 'Brake shoe set, front', category: 'Brakes' });
+  const velmark = await addPart(page.request, shopId, { number: '40-1101', description: 'Brake shoe set, rear', category: 'Brakes' });
+  for (const [part, marque] of [[corran, 'Corran'], [velmark, 'Velmark']] as const) {
+    const res = await page.request.post(`/api/shops/${shopId}/fitments`, { headers: writeHeaders, data: { partId: part.id, marque, model: 'Tourer', yearFrom: 1960, yearTo: 1970 } });
+    expect(res.status(), await res.text()).toBe(201);
+  }
+
+  await page.goto(`/shops/${shopId}/lookup`);
+  await expect(page.getByRole('combobox', { name: 'Look up a part' })).toBeFocused();
+  await page.keyboard.type('brake shoe');
+  const results = page.getByRole('listbox', { name: 'Lookup results' });
+  await expect(results.getByRole('option')).toHaveCount(2);
+
+  await page.getByRole('button', { name: 'Narrow down' }).click();
+  const form = page.getByRole('search', { name: 'Narrow the lookup' });
+  await form.getByRole('textbox', { name: 'Marque' }).fill('Velmark');
+  await form.getByRole('textbox', { name: 'Year' }).fill('1965');
+  await form.getByRole('textbox', { name: 'Year' }).press('Enter');
+  await expect(page.getByText('Fits Velmark 1965')).toBeVisible();
+  await expect(results.getByRole('option')).toHaveCount(1);
+  await expect(results.getByRole('option').first()).toContainText('40-1101');
+
+  // The filter is in the address: a reload keeps it.
+  await page.reload();
+  await expect(page.getByRole('combobox', { name: 'Look up a part' })).toBeFocused();
+  await page.keyboard.type('brake shoe');
+  await expect(page.getByRole('listbox', { name: 'Lookup results' }).getByRole('option')).toHaveCount(1);
+  await page.getByRole('button', { name: 'Clear' }).click();
+  await expect(page.getByRole('listbox', { name: 'Lookup results' }).getByRole('option')).toHaveCount(2);
+});
