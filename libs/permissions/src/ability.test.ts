@@ -45,6 +45,17 @@ describe('mechanic', () => {
     expect(ability.can('update', subjectOf('Job', { shopId: shopA, assigneeIds: ['u-other'] }))).toBe(false);
     expect(ability.can('update', subjectOf('Job', { shopId: shopA, assigneeIds: [] }))).toBe(false);
   });
+  it('works on vehicles but cannot change their acquisition cost or asking price (field-level)', () => {
+    const vehicle = subjectOf('Vehicle', { shopId: shopA });
+    expect(ability.can('create', vehicle)).toBe(true);
+    expect(ability.can('update', vehicle)).toBe(true);
+    expect(ability.can('update', vehicle, 'model')).toBe(true);
+    expect(ability.can('update', vehicle, 'acquisitionCostMinor')).toBe(false);
+    expect(ability.can('update', vehicle, 'askingPriceMinor')).toBe(false);
+    const owner = defineAbilityFor(me, inShop('owner'));
+    expect(owner.can('update', vehicle, 'askingPriceMinor')).toBe(true);
+    expect(owner.can('update', vehicle, 'acquisitionCostMinor')).toBe(true);
+  });
 });
 
 describe('buyer', () => {
@@ -70,10 +81,11 @@ describe('buyer', () => {
 
 describe('viewer', () => {
   const ability = defineAbilityFor(me, inShop('viewer'));
-  it('reads the working data', () => {
-    for (const s of ['Part', 'Stock', 'Vehicle', 'Job', 'PurchaseOrder'] as const) {
+  it('reads the working data and the settings every screen needs (currency, units), but cannot change settings', () => {
+    for (const s of ['Part', 'Stock', 'Vehicle', 'Job', 'PurchaseOrder', 'Settings'] as const) {
       expect(ability.can('read', subjectOf(s, { shopId: shopA }))).toBe(true);
     }
+    expect(ability.can('update', subjectOf('Settings', { shopId: shopA }))).toBe(false);
   });
   it('changes nothing', () => {
     expect(ability.can('create', subjectOf('Part', { shopId: shopA }))).toBe(false);
@@ -88,6 +100,7 @@ describe('API keys', () => {
     expect(ability.can('create', subjectOf('Staff', { shopId: shopA }))).toBe(false);
     expect(ability.can('create', subjectOf('ApiKey', { shopId: shopA }))).toBe(false);
     expect(ability.can('update', subjectOf('Settings', { shopId: shopA }))).toBe(false);
+    expect(ability.can('read', subjectOf('Settings', { shopId: shopA }))).toBe(false);
     expect(ability.can('manage', subjectOf('Billing', { shopId: shopA }))).toBe(false);
   });
 });

@@ -106,8 +106,9 @@ export function defineAbilityFor(actor: Actor, shop: ShopContext | null): AppAbi
 
   if (shop) {
     const own = { shopId: shop.shopId };
-    // Everyone in the shop reads the shop's working data.
-    for (const s of ['Shop', 'Part', 'Stock', 'Bin', 'Supplier', 'PurchaseOrder', 'Vehicle', 'Job', 'Customer', 'Invoice'] as const) {
+    // Everyone in the shop reads the shop's working data, and its settings (currency, units, rates
+    // that every screen needs to show figures); changing settings stays with the owner.
+    for (const s of ['Shop', 'Settings', 'Part', 'Stock', 'Bin', 'Supplier', 'PurchaseOrder', 'Vehicle', 'Job', 'Customer', 'Invoice'] as const) {
       can('read', s, own);
     }
 
@@ -120,6 +121,8 @@ export function defineAbilityFor(actor: Actor, shop: ShopContext | null): AppAbi
         can('issue', 'Stock', own);
         can('update', 'Vehicle', own);
         can('create', 'Vehicle', own);
+        // Field-level: what the shop paid for a vehicle and asks for it are the owner's call.
+        cannot('update', 'Vehicle', ['acquisitionCostMinor', 'askingPriceMinor']).because('Only the owner sets a vehicle’s acquisition cost and asking price.');
         // Jobs: only those the mechanic is assigned to.
         can(['update', 'hold', 'issue'], 'Job', where({ ...own, assigneeIds: actor.userId }));
         break;

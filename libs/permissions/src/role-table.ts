@@ -11,6 +11,8 @@ export interface RoleTableRow {
   record?: (me: string) => SubjectRecord;
   /** Words for the condition when a role may do it only on some records. */
   condition?: string;
+  /** A single field of the record, for field-level rules. */
+  field?: string;
 }
 
 export type RoleTableAnswer = 'yes' | 'no' | 'conditional';
@@ -22,6 +24,7 @@ export type RoleTableAnswer = 'yes' | 'no' | 'conditional';
 export const roleTableRows: RoleTableRow[] = [
   { label: 'See the shop and its working data', action: 'read', subject: 'Part' },
   { label: 'Rename the shop', action: 'update', subject: 'Shop' },
+  { label: 'Read the shop settings (currency, units, rates)', action: 'read', subject: 'Settings' },
   { label: 'Change the shop settings', action: 'update', subject: 'Settings' },
   { label: 'Invite staff, change roles and limits', action: 'create', subject: 'Staff' },
   { label: 'Create and revoke API keys', action: 'create', subject: 'ApiKey' },
@@ -45,6 +48,7 @@ export const roleTableRows: RoleTableRow[] = [
   },
   { label: 'Approve a purchase order', action: 'approve', subject: 'PurchaseOrder' },
   { label: 'Create and edit vehicles', action: 'update', subject: 'Vehicle' },
+  { label: 'Set a vehicle’s acquisition cost and asking price', action: 'update', subject: 'Vehicle', field: 'askingPriceMinor' },
   {
     label: 'Record checklists, parts and labour on a job',
     action: 'update',
@@ -62,7 +66,7 @@ const someoneElse = '00000000-0000-4000-8000-0000000000bb';
 export function answerRow(row: RoleTableRow, role: ShopRole): RoleTableAnswer {
   const ability = defineAbilityFor({ userId: me, isPlatformAdmin: false }, { shopId: sampleShop, role, spendingLimitMinor: 100 });
   const extra = row.record?.(me) ?? {};
-  const allowed = ability.can(row.action, subjectOf(row.subject, { shopId: sampleShop, ...extra }));
+  const allowed = ability.can(row.action, subjectOf(row.subject, { shopId: sampleShop, ...extra }), row.field);
   if (!allowed) return 'no';
   // Conditional when the same record without the favourable attributes would be refused.
   if (row.record) {

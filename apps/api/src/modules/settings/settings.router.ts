@@ -5,7 +5,7 @@ import { authorize, shopOf } from '../../middleware/tenant-context';
 import { bodyOf, validate } from '../../middleware/validate';
 import type { SettingsService } from './settings.service';
 
-/** /api/shops/:shopId/settings (behind the tenant context). Owner only, by the permission table. */
+/** /api/shops/:shopId/settings (behind the tenant context). Every member reads; the owner changes (the permission table). */
 export function settingsRouter(deps: { settings: SettingsService }): Router {
   const router = Router({ mergeParams: true });
 

@@ -75,15 +75,20 @@ describe('shop settings', () => {
     expect(res.body.error.code).toBe('validation_failed');
   });
 
-  it('is for owners only (a buyer gets 403), and another shop is a 404', async () => {
+  it('is changed by owners only (others read it: screens need the currency and units), and another shop is a 404', async () => {
     for (const role of ['buyer', 'mechanic', 'viewer'] as const) {
       const agent = await signedInAgent(ctx.app, seeded.byRole[role].email, seeded.password);
       await agent.patch(url).set(csrf).send({ distanceUnit: 'km' }).expect(403);
-      await agent.get(url).expect(403);
+      expect((await agent.get(url).expect(200)).body).toMatchObject({ currency: 'GBP', distanceUnit: 'mi' });
     }
+    await otherShopOwnerCannotRead();
+    expect((await owner.get(url)).body.distanceUnit).toBe('mi');
+  });
+
+  async function otherShopOwnerCannotRead() {
     const other = await seedShop(ctx, ['owner']);
     const otherOwner = await signedInAgent(ctx.app, other.byRole.owner.email, other.password);
     await otherOwner.patch(url).set(csrf).send({ distanceUnit: 'km' }).expect(404);
-    expect((await owner.get(url)).body.distanceUnit).toBe('mi');
-  });
+    await otherOwner.get(url).expect(404);
+  }
 });
