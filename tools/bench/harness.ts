@@ -5,7 +5,7 @@ import { performance } from 'node:perf_hooks';
 
 export interface Figure {
   name: string;
-  unit: 'ms' | 'MB' | 'req/s';
+  unit: 'ms' | 's' | 'MB' | 'req/s' | '×' | '%';
   median: number;
   p95: number;
   /** Human-readable target, e.g. "p95 ≤ 2 ms". */
@@ -33,6 +33,11 @@ export function timeRuns(fn: (i: number) => void, runs: number, warmup = Math.mi
     out.push(performance.now() - t0);
   }
   return out.sort((a, b) => a - b);
+}
+
+/** A figure measured once (a count, a ratio, a percentage): median and p95 are the value. */
+export function single(name: string, unit: Figure['unit'], value: number, extra: Partial<Figure> = {}): Figure {
+  return { name, unit, median: value, p95: value, ...extra };
 }
 
 export function summarise(name: string, sortedMs: number[], extra: Partial<Figure> = {}): Figure {

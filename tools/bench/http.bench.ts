@@ -1,0 +1,114 @@
+/* eslint-disable @nx/enforce-module-boundaries -- the benchmark prepares its database through the API's own
+   data layer, as seeds/demo.ts does (docs/decisions/002-module-boundaries.md). */
+// HTTP throughput (issue 14): the API runs in its own process on loopback (as `npm start` runs it,
+// request logging on); autocannon loads it from this process. Figures: a trivial route (the ceiling
+// on this machine), authenticated lookups of typo'd numbers, and the same lookups while a
+// 50,000-row catalogue import commits. Target: lookups ≥ 1,500 req/s with p99 ≤ 50 ms.
+import { spawn } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import autocannon, { type Result as LoadResult } from 'autocannon';
+import { createDataSource } from '../../apps/api/src/db/data-source';
+import { databaseFor } from '../../apps/api/src/db/write-lock';
+import { systemClock } from '../../apps/api/src/lib/clock';
+import { createShopWithUsers } from '../../apps/api/src/modules/test-support/test-support.service';
+import { generateParts, insertLinks, insertParts, partsCsv, pickWith, typo } from './catalogue-gen';
+import { prng, single, type Figure } from './harness';
+
+const repo = fileURLToPath(new URL('../..', import.meta.url));
+const PORT = 3970;
+const base = `http://127.0.0.1:${PORT}`;
+const CONNECTIONS = 10;
+const SECONDS = 10;
+
+async function waitForHealth(): Promise<void> {
+  for (let i = 0; i < 240; i++) {
+    try {
+      if ((await fetch(`${base}/api/health`)).ok) return;
+    } catch {
+      /* not up yet */
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error('The API did not start for the HTTP benchmark.');
+}
+
+export async function runHttpBench(partCount = 50_000): Promise<Figure[]> {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tappet-http-bench-'));
+  const dataSource = createDataSource(path.join(dir, 'tappet.sqlite'));
+  await dataSource.initialize();
+  await dataSource.runMigrations();
+  const db = databaseFor(dataSource);
+  const created = await createShopWithUsers(db, systemClock, { roles: ['owner', 'mechanic'], namePrefix: 'HTTP Bench' });
+  const shopId = created.shop.id;
+  const parts = generateParts(partCount);
+  await insertParts(db, shopId, parts);
+  await insertLinks(db, shopId, parts, Math.round(partCount * 0.3));
+  await dataSource.destroy();
+
+  const server = spawn(path.join(repo, 'node_modules/.bin/tsx'), [path.join(repo, 'apps/api/src/main.ts')], {
+    cwd: repo,
+    env: { ...process.env, TAPPET_MODE: 'demo', PORT: String(PORT), PUBLIC_URL: base, TAPPET_DATA_DIR: dir, LOG_LEVEL: 'info' },
+    stdio: 'ignore',
+  });
+  try {
+    await waitForHealth();
+    const signIn = async (email: string) => {
+      const res = await fetch(`${base}/api/auth/sign-in`, { method: 'POST', headers: { 'Content-Type': 'application/json', 'X-CSRF': '1', Origin: base }, body: JSON.stringify({ email, password: created.password }) });
+      if (!res.ok) throw new Error(`sign-in failed: ${res.status} ${await res.text()}`);
+      return res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+    };
+    const byRole = (role: string) => created.users.find((u) => u.role === role)!.email;
+    const mechanic = await signIn(byRole('mechanic'));
+    const owner = await signIn(byRole('owner'));
+
+    const rnd = prng(2024);
+    const pick = pickWith(rnd);
+    const queries = Array.from({ length: 2000 }, () => `/api/shops/${shopId}/parts/search?q=${encodeURIComponent(typo(pick(parts).number, rnd))}&limit=10`);
+    let next = 0;
+    const lookups = () =>
+      autocannon({
+        url: base,
+        connections: CONNECTIONS,
+        duration: SECONDS,
+        headers: { cookie: mechanic },
+        requests: [{ method: 'GET', setupRequest: (req) => ({ ...req, path: queries[next++ % queries.length] }) }],
+      });
+
+    const figures: Figure[] = [];
+    const report = (name: string, r: LoadResult, target?: boolean) => {
+      const failed = r.errors + r.timeouts + r.non2xx;
+      const note = `${CONNECTIONS} connections, ${SECONDS} s; ${failed} failed of ${r.requests.total}`;
+      const okRate = target ? r.requests.average >= 1500 && failed === 0 : undefined;
+      figures.push(single(`${name}: throughput`, 'req/s', r.requests.average, target ? { target: '≥ 1,500 req/s', met: okRate, note } : { note }));
+      figures.push(single(`${name}: latency p99`, 'ms', r.latency.p99, target ? { target: 'p99 ≤ 50 ms', met: r.latency.p99 <= 50 } : {}));
+    };
+
+    await autocannon({ url: `${base}/api/health`, connections: CONNECTIONS, duration: 2 }); // warm-up
+    report('HTTP: GET /api/health (ceiling)', await autocannon({ url: `${base}/api/health`, connections: CONNECTIONS, duration: SECONDS }));
+    await autocannon({ url: base, connections: CONNECTIONS, duration: 2, headers: { cookie: mechanic }, requests: [{ method: 'GET', path: queries[0] }] }); // warm-up
+    report(`HTTP: authenticated lookups, ${partCount.toLocaleString('en')} parts`, await lookups(), true);
+
+    // The same load while the owner's import of 50,000 new parts commits.
+    const csv = partsCsv(generateParts(50_000, 777));
+    const running = lookups();
+    await new Promise((r) => setTimeout(r, 1000));
+    const form = new FormData();
+    form.set('kind', 'parts');
+    form.set('mode', 'commit');
+    form.set('file', new Blob([csv], { type: 'text/csv' }), 'bench.csv');
+    const importStart = performance.now();
+    const imported = await fetch(`${base}/api/shops/${shopId}/imports`, { method: 'POST', headers: { cookie: owner, 'X-CSRF': '1', Origin: base }, body: form });
+    const importSeconds = (performance.now() - importStart) / 1000;
+    if (!imported.ok) throw new Error(`import during the load failed: ${imported.status} ${await imported.text()}`);
+    report('HTTP: the same lookups while a 50,000-row import commits', await running, true);
+    figures.push(single('HTTP: the import itself under that load', 's', importSeconds, { note: 'upload, check and commit' }));
+    return figures;
+  } finally {
+    server.kill('SIGTERM');
+    await new Promise((r) => server.once('exit', r));
+    fs.rmSync(dir, { recursive: true, force: true });
+  }
+}
