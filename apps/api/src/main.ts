@@ -1,11 +1,14 @@
 // Starts the API: configuration, database (migrated after a backup), mailer, app, listen; and a
 // graceful shutdown. The mail sink and the seed are started by the lead's start script, not here.
+import fs from 'node:fs';
 import type { Server } from 'node:http';
+import path from 'node:path';
 import { createApp } from './app';
 import { EnvError, loadEnv, type Env } from './config/env';
 import { createDataSource } from './db/data-source';
 import { migrateWithBackup } from './db/migrate';
 import { databaseFor } from './db/write-lock';
+import { pidFileName } from './db/backup';
 import { createSmtpMailer } from './lib/mailer';
 
 function readEnv(): Env {
@@ -29,7 +32,10 @@ async function main(): Promise<void> {
   if (migrated.applied.length) console.log(`Applied migrations: ${migrated.applied.join(', ')}`);
 
   const app = createApp({ dataSource, env, mailer: createSmtpMailer(env) });
+  // The pid file tells `npm run restore` that this data folder is in use.
+  const pidFile = path.join(env.dataDir, pidFileName);
   const server: Server = app.listen(env.port, () => {
+    fs.writeFileSync(pidFile, `${process.pid}\n`);
     console.log(`Tappet (${env.mode} mode) is listening on ${env.publicUrl}`);
   });
   server.on('error', (err: NodeJS.ErrnoException) => {
@@ -48,6 +54,7 @@ async function main(): Promise<void> {
       databaseFor(dataSource)
         .drain()
         .then(() => dataSource.destroy())
+        .then(() => fs.rmSync(pidFile, { force: true }))
         .then(
           () => process.exit(0),
           (err: unknown) => {
