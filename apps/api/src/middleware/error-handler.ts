@@ -13,6 +13,12 @@ interface BodyParserError {
   expose?: boolean;
 }
 
+/**
+ * What busboy (under multer) throws for a multipart body it cannot read. These are the sender's
+ * mistakes, so they answer 400 rather than 500 (found by the hostile-input tests).
+ */
+const malformedFormMessages = /^(Malformed part header|Malformed urlencoded form|Malformed content type|Multipart: Boundary not found|Missing Content-Type|Unexpected end of (form|file)|Unsupported content type: .*|Request (aborted|closed))$/;
+
 const codeByStatus: Record<number, ErrorCode> = { 400: 'bad_request', 401: 'unauthenticated', 403: 'forbidden', 404: 'not_found', 409: 'conflict', 413: 'payload_too_large', 415: 'unsupported_media_type', 429: 'rate_limited' };
 
 function toHttpError(err: unknown): HttpError {
@@ -23,6 +29,9 @@ function toHttpError(err: unknown): HttpError {
     return new HttpError(400, 'validation_failed', message, details);
   }
   if (err instanceof ForbiddenError) return new HttpError(403, 'forbidden', err.message);
+  if (err instanceof Error && err.constructor === Error && malformedFormMessages.test(err.message)) {
+    return new HttpError(400, 'bad_request', `The uploaded form could not be read (${err.message.toLowerCase()}). Attach the file again.`);
+  }
   const parserError = err as BodyParserError;
   switch (parserError?.type) {
     case 'entity.parse.failed':
