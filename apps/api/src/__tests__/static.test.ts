@@ -13,6 +13,7 @@ beforeAll(async () => {
   fs.mkdirSync(path.join(dir, 'fonts'));
   fs.writeFileSync(path.join(dir, 'web/index.html'), '<!doctype html><title>Tappet</title>');
   fs.writeFileSync(path.join(dir, 'web/assets/index-abc123.js'), 'console.log(1)');
+  fs.writeFileSync(path.join(dir, 'web/assets/big-abc123.js'), `export const words = ${JSON.stringify('lookup '.repeat(20_000))};`);
   fs.writeFileSync(path.join(dir, 'fonts/body.woff2'), 'font-bytes');
   ctx = await createTestContext({ deps: { webDir: path.join(dir, 'web'), fontsDir: path.join(dir, 'fonts') } });
 });
@@ -29,6 +30,25 @@ describe('serving the web app and fonts', () => {
       expect(res.text).toContain('<title>Tappet</title>');
       expect(res.headers['cache-control']).toBe('no-cache');
     }
+  });
+
+  it('sends scripts compressed to a browser that accepts it, and plain to one that does not', async () => {
+    const size = fs.statSync(path.join(dir, 'web/assets/big-abc123.js')).size;
+    // supertest decompresses what it receives, so the header is what shows the compression.
+    const br = await request(ctx.app).get('/assets/big-abc123.js').set('Accept-Encoding', 'br, gzip');
+    expect(br.headers['content-encoding']).toBe('br');
+    expect(br.text.length).toBe(size);
+    const gzip = await request(ctx.app).get('/assets/big-abc123.js').set('Accept-Encoding', 'gzip');
+    expect(gzip.headers['content-encoding']).toBe('gzip');
+    const plain = await request(ctx.app).get('/assets/big-abc123.js').set('Accept-Encoding', 'identity');
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    expect(plain.text.length).toBe(size);
+  });
+
+  it('does not compress API answers', async () => {
+    const res = await request(ctx.app).get('/api/openapi.json').set('Accept-Encoding', 'br, gzip');
+    expect(res.status).toBe(200);
+    expect(res.headers['content-encoding']).toBeUndefined();
   });
 
   it('never answers /api with the SPA', async () => {

@@ -1,13 +1,18 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import compression from 'compression';
 import express, { type Router } from 'express';
 
 /**
  * Serves the built web app (when `webDir` holds one) with an SPA fallback for non-API GETs, and
- * the shipped fonts from `fontsDir` with a long cache.
+ * the shipped fonts from `fontsDir` with a long cache. Text assets go out compressed (brotli or
+ * gzip): the first load on a workshop tablet's mobile connection carries a third of the bytes.
+ * API answers are not compressed here (they are small, and it keeps secrets shown once, such as a
+ * new API key, away from compression side channels).
  */
 export function staticRouter(options: { webDir: string; fontsDir: string }): Router {
   const router = express.Router();
+  router.use(compression());
   if (fs.existsSync(options.fontsDir)) {
     router.use('/fonts', express.static(options.fontsDir, { maxAge: '365d', immutable: true, index: false, fallthrough: false }));
   }
