@@ -58,7 +58,9 @@ export async function runLighthouseBench(): Promise<Figure[]> {
         ['mobile', undefined],
         ['desktop', desktopConfig],
       ] as const) {
-        const result = await lighthouse(page.url, { port: chrome.port, output: 'json', logLevel: 'error', onlyCategories: ['performance', 'accessibility'], extraHeaders: { Cookie: cookie } }, config);
+        // Lighthouse sometimes loses the trace of a load (NO_NAVSTART) on a busy machine: one more try.
+        let result = await lighthouse(page.url, { port: chrome.port, output: 'json', logLevel: 'error', onlyCategories: ['performance', 'accessibility'], extraHeaders: { Cookie: cookie } }, config);
+        if (result?.lhr.runtimeError) result = await lighthouse(page.url, { port: chrome.port, output: 'json', logLevel: 'error', onlyCategories: ['performance', 'accessibility'], extraHeaders: { Cookie: cookie } }, config);
         if (!result) throw new Error(`Lighthouse gave no result for ${page.url}`);
         const { performance, accessibility } = result.lhr.categories;
         const perf = Math.round((performance?.score ?? 0) * 100);
