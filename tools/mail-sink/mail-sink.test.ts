@@ -33,6 +33,13 @@ describe('mail sink', () => {
     expect((await api('/messages/nope')).status).toBe(404);
   });
 
+  it('lists what was attached (name, type, size), without keeping the bytes', async () => {
+    const transport = nodemailer.createTransport({ host: '127.0.0.1', port: sink.smtpPort, secure: false, ignoreTLS: true });
+    await transport.sendMail({ from: 'Tappet <no-reply@tappet.test>', to: 'orders@marrick.test', subject: 'Order PO-000001', text: 'Attached.', attachments: [{ filename: 'PO-000001.pdf', content: Buffer.alloc(1234, 1), contentType: 'application/pdf' }] });
+    const [message] = (await (await api('/messages?to=orders@marrick.test')).json()) as Array<{ attachments: unknown[] }>;
+    expect(message!.attachments).toEqual([{ filename: 'PO-000001.pdf', contentType: 'application/pdf', size: 1234 }]);
+  });
+
   it('empties the inbox on DELETE /messages', async () => {
     await send('viewer@harbour-works.test', 'Hello', 'Hi');
     expect((await api('/messages', { method: 'DELETE' })).status).toBe(204);

@@ -11,6 +11,8 @@ export interface SinkMessage {
   subject: string;
   text: string;
   html: string | null;
+  /** What was attached: name, type and size only (the bytes are not kept). */
+  attachments: Array<{ filename: string | null; contentType: string; size: number }>;
   receivedAt: string;
 }
 
@@ -112,6 +114,7 @@ export async function startMailSink(options: MailSinkOptions = {}): Promise<Mail
           subject: parsed.subject ?? '',
           text: parsed.text ?? '',
           html: typeof parsed.html === 'string' ? parsed.html : null,
+          attachments: parsed.attachments.map((a) => ({ filename: a.filename ?? null, contentType: a.contentType, size: a.size })),
           receivedAt: new Date().toISOString(),
         });
         if (messages.length > maxMessages) messages.splice(0, messages.length - maxMessages);

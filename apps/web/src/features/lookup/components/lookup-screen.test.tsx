@@ -86,7 +86,8 @@ describe('the lookup screen', () => {
     await user.keyboard('{Enter}');
     await waitFor(() => expect(screen.queryByRole('search', { name: 'Narrow the lookup' })).not.toBeInTheDocument());
     expect(new URLSearchParams(router.state.location.search).get('marque')).toBe('Corran');
-    expect(screen.getByText('Fits Corran 1968 · Brakes · Genuine')).toBeInTheDocument();
+    // The router's state changes at once; the screen follows on its next render.
+    expect(await screen.findByText('Fits Corran 1968 · Brakes · Genuine', {}, slow)).toBeInTheDocument();
     expect(screen.getByRole('button', { name: 'Narrowed (4)' })).toBeInTheDocument();
 
     await user.type(field, 'clutch');
@@ -109,7 +110,7 @@ describe('the lookup screen', () => {
     const { requests } = install((q) => ({ body: { results: q ? [result()] : [] } }));
     renderApp(`/shops/${shopA}/lookup?year=19x&origin=stolen&marque=Velmark`);
     const field = await screen.findByRole('combobox', { name: 'Look up a part' }, slow);
-    expect(screen.getByText('Fits Velmark')).toBeInTheDocument();
+    expect(await screen.findByText('Fits Velmark', {}, slow)).toBeInTheDocument();
     await user.type(field, 'hub');
     await screen.findByRole('listbox', { name: 'Lookup results' }, slow);
     const sent = new URLSearchParams(requests.filter((r) => r.path.includes('/parts/search')).at(-1)!.path.split('?')[1]);
