@@ -1,0 +1,109 @@
+import type { Hold } from '@tappet/contracts';
+import { Button, ConfirmDialog, createColumnHelper, DataTable, EmptyState, ErrorState, LoadingState, Num, PartNumber, useToast } from '@tappet/ui';
+import { useMemo, useState } from 'react';
+import { Link } from 'react-router-dom';
+import { paths } from '../../../config/paths';
+import { useCan } from '../../../lib/ability';
+import { errorMessage } from '../../../lib/api-client';
+import { useHolds } from '../api/get-holds';
+import { useValuation } from '../api/get-valuation';
+import { releaseHold, useStockMutation } from '../api/write-stock';
+import { StockActionDialog } from './stock-action-dialog';
+import { conditionLabel } from './words';
+
+const column = createColumnHelper<Hold>();
+
+/** Holds still active: issue what they set aside, or release it (after a confirmation). */
+export function HoldsList({ shopId, holds: given }: { shopId: string; holds?: Hold[] }) {
+  const query = useHolds(shopId);
+  const currency = useValuation(shopId).data?.currency ?? 'GBP';
+  const canHold = useCan('hold', 'Stock', { shopId });
+  const canIssue = useCan('issue', 'Stock', { shopId });
+  const [releasing, setReleasing] = useState<Hold | null>(null);
+  const [issuing, setIssuing] = useState<Hold | null>(null);
+  const release = useStockMutation(shopId, (s: string, holdId: string) => releaseHold(s, holdId));
+  const toast = useToast();
+  const holds = given ?? query.data?.holds;
+
+  const columns = useMemo(
+    () => [
+      column.accessor('partNumber', {
+        header: 'Part',
+        cell: (info) => (
+          <Link to={paths.shop.part.getHref(shopId, info.row.original.partId)} className="text-accent underline-offset-4 hover:underline">
+            <PartNumber>{info.getValue()}</PartNumber>
+          </Link>
+        ),
+      }),
+      column.accessor('binCode', { header: 'Bin', cell: (info) => <PartNumber>{info.getValue()}</PartNumber> }),
+      column.accessor('condition', { header: 'Condition', cell: (info) => conditionLabel(info.getValue()) }),
+      column.accessor('quantity', { header: 'Held', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
+      column.accessor('purpose', { header: 'Held for' }),
+      column.accessor('createdByName', { header: 'By', cell: (info) => info.getValue() ?? '—' }),
+      column.display({
+        id: 'actions',
+        header: 'Actions',
+        cell: (info) => {
+          const hold = info.row.original;
+          return (
+            <div className="flex flex-wrap gap-1">
+              {canIssue && (
+                <Button size="sm" variant="secondary" aria-label={`Issue ${hold.partNumber} held for ${hold.purpose}`} onClick={() => setIssuing(hold)}>
+                  Issue
+                </Button>
+              )}
+              {canHold && (
+                <Button size="sm" variant="secondary" aria-label={`Release ${hold.partNumber} held for ${hold.purpose}`} onClick={() => setReleasing(hold)}>
+                  Release
+                </Button>
+              )}
+            </div>
+          );
+        },
+      }),
+    ],
+    [shopId, canHold, canIssue],
+  );
+
+  if (!holds) {
+    if (query.isError) return <ErrorState message={errorMessage(query.error)} onRetry={() => void query.refetch()} />;
+    return <LoadingState label="Loading holds…" />;
+  }
+  return (
+    <>
+      {holds.length === 0 ? (
+        <EmptyState title="Nothing is held">Hold stock from the stock list or a part&apos;s page to set it aside for a job.</EmptyState>
+      ) : (
+        <DataTable caption="Stock held" columns={columns} data={holds} getRowId={(h) => h.id} />
+      )}
+      <ConfirmDialog
+        open={releasing !== null}
+        title="Release this hold?"
+        message={releasing ? `${releasing.quantity} × ${releasing.partNumber} in ${releasing.binCode}, held for ${releasing.purpose}, becomes free for anyone to issue.` : ''}
+        confirmLabel="Release"
+        loading={release.isPending}
+        onCancel={() => setReleasing(null)}
+        onConfirm={() =>
+          releasing &&
+          release.mutate(releasing.id, {
+            onSuccess: () => {
+              toast.show(`Released ${releasing.partNumber}.`, 'ok');
+              setReleasing(null);
+            },
+            onError: (error) => {
+              toast.show(errorMessage(error), 'fail');
+              setReleasing(null);
+            },
+          })
+        }
+      />
+      <StockActionDialog
+        shopId={shopId}
+        action={issuing ? 'issue' : null}
+        currency={currency}
+        preset={issuing ? { partId: issuing.partId, partNumber: issuing.partNumber, binId: issuing.binId, condition: issuing.condition, holdId: issuing.id, quantity: issuing.quantity, holdPurpose: issuing.purpose } : undefined}
+        onClose={() => setIssuing(null)}
+      />
+    </>
+  );
+}
