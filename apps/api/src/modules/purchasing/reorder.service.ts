@@ -1,0 +1,324 @@
+import { decideReorder, demandStats, substituteSupply, type SubstituteStock } from '@tappet/domain';
+import { defaultShopSettings, type PurchaseOrder, type ReorderListResponse, type ReorderSuggestion } from '@tappet/contracts';
+import type { Database } from '../../db/write-lock';
+import type { Clock } from '../../lib/clock';
+import type { AuditActor } from '../audit/audit.service';
+import { PartEntity, type PartRow } from '../catalogue/catalogue.entity';
+import type { CatalogueService } from '../catalogue/catalogue.service';
+import { ShopSettingsEntity } from '../settings/settings.entity';
+import { freeStockByPart } from '../stock/stock.queries';
+import type { OrdersService } from './orders.service';
+import { ListingEntity, PartPurchasingEntity, SupplierEntity, type ListingRow, type SupplierRow } from './purchasing.entity';
+import type { SuppliersService } from './suppliers.service';
+
+const DAY = 86_400_000;
+/** Order statuses whose outstanding quantities count as stock on order (drafts too, so a drafted suggestion is not suggested again). */
+const ON_ORDER = `('draft', 'awaiting_approval', 'approved', 'sent', 'partly_received')`;
+/** A date as SQLite stores TypeORM datetimes, for comparisons in SQL. */
+const sqlDate = (d: Date) => d.toISOString().replace('T', ' ').replace('Z', '');
+const parseSqlDate = (s: string | Date) => (s instanceof Date ? s : new Date(`${s.replace(' ', 'T')}${s.endsWith('Z') ? '' : 'Z'}`));
+
+interface Feed {
+  partId: string;
+  number: string;
+  /** Daily demand for the current part that arrived under this number, in current-part units. */
+  daily: number[];
+  /** Current-part units per unit of this number. */
+  ratio: number;
+}
+
+/**
+ * The reorder list: demand history from the stock ledger (issues net of job returns; days without
+ * issues count as 0) rolled up through the lineage engine into current parts, the supply that can
+ * meet it, and one decision per part from libs/domain (`decideReorder`), grouped by supplier.
+ */
+export function createReorderService(deps: { db: Database; clock: Clock; catalogue: CatalogueService; suppliers: SuppliersService; orders: OrdersService }) {
+  const { db, clock, catalogue, suppliers, orders } = deps;
+
+  async function list(shopId: string): Promise<ReorderListResponse & { suggestionListings: Map<string, ListingRow> }> {
+    const now = clock.now();
+    const shopSettings = await db.reader.findOne(ShopSettingsEntity, { where: { shopId } });
+    const serviceLevel = shopSettings ? shopSettings.serviceLevelMilli / 1000 : defaultShopSettings.serviceLevel;
+    const orderingCostMinor = shopSettings?.orderingCostMinor ?? defaultShopSettings.orderingCostMinor;
+    const holdingCostRatePercent = shopSettings ? shopSettings.holdingCostRateMilliPercent / 1000 : defaultShopSettings.holdingCostRatePercent;
+    const currency = shopSettings?.currency ?? defaultShopSettings.currency;
+    const { demandWindowDays: window, deadStockDays } = await suppliers.settings(shopId);
+
+    // Day 0 is the first whole day of the window; the last day is today.
+    const today = Math.floor(now.getTime() / DAY) * DAY;
+    const start = today - (window - 1) * DAY;
+    const movements = await db.reader.query<Array<{ partId: string; kind: string; delta: number; at: string }>>(
+      `SELECT part_id AS partId, kind, quantity_delta AS delta, occurred_at AS at FROM stock_movements
+       WHERE shop_id = ? AND kind IN ('issued', 'returned') AND condition <> 'core' AND occurred_at >= ? AND occurred_at <= ?`,
+      [shopId, sqlDate(new Date(start)), sqlDate(now)],
+    );
+    const issuedDaily = new Map<string, number[]>();
+    for (const m of movements) {
+      const day = Math.floor((parseSqlDate(m.at).getTime() - start) / DAY);
+      if (day < 0 || day >= window) continue;
+      let days = issuedDaily.get(m.partId);
+      if (!days) issuedDaily.set(m.partId, (days = new Array<number>(window).fill(0)));
+      // Issues are negative deltas; returns from jobs (positive) are netted on the day they come back.
+      days[day]! += -Number(m.delta);
+    }
+    for (const days of issuedDaily.values()) for (let i = 0; i < days.length; i++) days[i] = Math.max(0, days[i]!);
+
+    const parts = new Map((await db.reader.find(PartEntity, { where: { shopId } })).map((p) => [p.id, p]));
+    const graph = await catalogue.graphOf(shopId);
+    const feeds = new Map<string, Map<string, Feed>>();
+    for (const [issuedId, days] of issuedDaily) {
+      const issued = parts.get(issuedId);
+      if (!issued || !graph.hasPart(issuedId)) continue;
+      for (const current of graph.currentParts(issuedId).current) {
+        let byFeeder = feeds.get(current.partId);
+        if (!byFeeder) feeds.set(current.partId, (byFeeder = new Map()));
+        byFeeder.set(issuedId, { partId: issuedId, number: issued.number, daily: days.map((d) => d * current.quantity), ratio: current.quantity });
+      }
+    }
+
+    // Free stock through the stock module's query; cores are not sellable stock, so they are left out.
+    const free = new Map<string, number>();
+    for (const [id, summary] of await freeStockByPart(db.reader, shopId, [...parts.keys()])) {
+      const n = summary.lines.filter((l) => l.condition !== 'core').reduce((sum, l) => sum + l.free, 0);
+      if (n > 0) free.set(id, n);
+    }
+    const onOrder = new Map(
+      (
+        await db.reader.query<Array<{ partId: string; n: number }>>(
+          `SELECT l.part_id AS partId, SUM(l.quantity - l.received_quantity - l.cancelled_quantity) AS n FROM purchase_order_lines l
+           JOIN purchase_orders o ON o.shop_id = l.shop_id AND o.id = l.order_id WHERE l.shop_id = ? AND o.status IN ${ON_ORDER} GROUP BY l.part_id`,
+          [shopId],
+        )
+      ).map((r) => [r.partId, Number(r.n)]),
+    );
+    const pools = new Map(
+      (await db.reader.query<Array<{ partId: string; q: number; v: number }>>(`SELECT part_id AS partId, SUM(quantity) AS q, SUM(value_minor) AS v FROM stock_pools WHERE shop_id = ? GROUP BY part_id`, [shopId])).map((r) => [
+        r.partId,
+        { quantity: Number(r.q), value: Number(r.v) },
+      ]),
+    );
+    const manual = new Map((await db.reader.find(PartPurchasingEntity, { where: { shopId } })).map((r) => [r.partId, r]));
+    const supplierRows = new Map((await db.reader.find(SupplierEntity, { where: { shopId } })).map((s) => [s.id, s]));
+    const listingsByPart = new Map<string, ListingRow[]>();
+    for (const l of await db.reader.find(ListingEntity, { where: { shopId } })) listingsByPart.set(l.partId, [...(listingsByPart.get(l.partId) ?? []), l]);
+
+    const candidates = new Set<string>([...feeds.keys(), ...[...manual.values()].filter((m) => m.minQty !== null).map((m) => m.partId)]);
+    const suggestions: ReorderSuggestion[] = [];
+    const suggestionListings = new Map<string, ListingRow>();
+    for (const partId of candidates) {
+      const part = parts.get(partId);
+      if (!part || part.status === 'nla') continue;
+      const byFeeder = feeds.get(partId) ?? new Map<string, Feed>();
+      const daily = new Array<number>(window).fill(0);
+      for (const f of byFeeder.values()) f.daily.forEach((d, i) => (daily[i]! += d));
+      const stats = demandStats(daily);
+
+      const choice = chooseListing(listingsByPart.get(partId) ?? [], manual.get(partId)?.preferredSupplierId ?? null, supplierRows);
+      const supplier = choice ? supplierRows.get(choice.supplierId)! : null;
+      const leadTimeDays = choice?.leadTimeDays ?? supplier?.leadTimeDays ?? 14;
+      const sdLeadTimeDays = supplier?.leadTimeSdDays ?? null;
+
+      // Other parts' stock that can fill this demand (see substituteSupply in libs/domain).
+      const subs: SubstituteStock[] = [];
+      const full = new Set<string>();
+      if (graph.hasPart(partId)) {
+        for (const option of graph.canFill(partId).options) {
+          const only = option.parts.length === 1 ? option.parts[0] : undefined;
+          if (!only || only.partId === partId || option.needsChanges || full.has(only.partId)) continue;
+          full.add(only.partId);
+          const stock = free.get(only.partId) ?? 0;
+          if (stock > 0) subs.push({ free: stock, unitsPerDemandUnit: only.quantity, scope: 'full' });
+        }
+      }
+      const oneWay = new Set<string>();
+      for (const f of byFeeder.values()) {
+        if (f.partId === partId || full.has(f.partId)) continue;
+        oneWay.add(f.partId);
+        const stock = free.get(f.partId) ?? 0;
+        const ownMean = f.daily.reduce((s, d) => s + d, 0) / window;
+        if (stock > 0) subs.push({ free: stock, unitsPerDemandUnit: 1 / f.ratio, scope: 'own_demand_only', ownDemand: ownMean * leadTimeDays });
+      }
+      const substitutes = substituteSupply(subs);
+      const freeHere = Math.max(0, free.get(partId) ?? 0);
+      const ordered = onOrder.get(partId) ?? 0;
+      const position = freeHere + ordered + substitutes;
+
+      const pool = pools.get(partId);
+      const unitCost = choice?.lastPaidUnitMinor ?? (pool && pool.quantity > 0 ? pool.value / pool.quantity : null) ?? (choice && supplier?.currency === currency ? choice.priceMinor : null);
+      const m = manual.get(partId);
+      const decision = decideReorder({
+        meanDemandPerDay: stats.mean,
+        sdDemandPerDay: stats.standardDeviation,
+        leadTimeDays,
+        sdLeadTimeDays,
+        service: { serviceLevel },
+        orderCostMinor: orderingCostMinor,
+        holdingRatePerYear: holdingCostRatePercent / 100,
+        unitCostMinor: unitCost,
+        stockPosition: position,
+        pack: { packSize: choice?.packSize ?? 1, minOrderQty: choice?.minOrderQty ?? 0 },
+        manual: m ? { min: m.minQty, max: m.maxQty } : undefined,
+      });
+      if (!decision || decision.quantity === 0) continue;
+      const reasons = [...decision.reasons];
+      reasons.unshift(`Stock position ${round2(position)}: ${freeHere} free here, ${ordered} on order${substitutes > 0 ? `, ${round2(substitutes)} from parts that can fill it` : ''}.`);
+      const older = [...byFeeder.values()].filter((f) => f.partId !== partId);
+      if (older.length > 0) reasons.unshift(`Demand includes issues under ${older.map((f) => `${f.number}${f.ratio !== 1 ? ` (×${round2(f.ratio)})` : ''}`).join(', ')}, which resolve to ${part.number}.`);
+      if (!supplier) reasons.push('No supplier lists this part: add a listing to order it.');
+      if (choice) suggestionListings.set(partId, choice);
+      suggestions.push({
+        partId,
+        partNumber: part.number,
+        description: part.description,
+        supplierId: supplier?.id ?? null,
+        supplierName: supplier?.name ?? null,
+        listingId: choice?.id ?? null,
+        method: decision.method,
+        demand: {
+          windowDays: window,
+          total: round2(daily.reduce((s, d) => s + d, 0)),
+          meanPerDay: stats.mean,
+          sdPerDay: stats.standardDeviation,
+          fedBy: [...byFeeder.values()].map((f) => ({ partId: f.partId, number: f.number, quantity: round2(f.daily.reduce((s, d) => s + d, 0)), ownDemandOnly: oneWay.has(f.partId) })),
+        },
+        leadTime: { days: leadTimeDays, sdDays: sdLeadTimeDays },
+        serviceLevel,
+        z: decision.z,
+        model: decision.model,
+        safetyStock: decision.safetyStock,
+        reorderPoint: decision.reorderPoint,
+        eoq: decision.eoq,
+        supply: { free: freeHere, onOrder: ordered, substitutes, position },
+        wanted: decision.wanted,
+        quantity: decision.quantity,
+        packSize: choice?.packSize ?? 1,
+        minOrderQty: choice?.minOrderQty ?? 0,
+        unitPriceMinor: choice?.priceMinor ?? null,
+        valueMinor: choice ? choice.priceMinor * decision.quantity : null,
+        currency: supplier?.currency ?? null,
+        reasons,
+        history: historyOf(byFeeder, start, window),
+      });
+    }
+    suggestions.sort((a, b) => (a.supplierName ?? '\uffff').localeCompare(b.supplierName ?? '\uffff') || a.partNumber.localeCompare(b.partNumber));
+
+    const groups = new Map<string | null, ReorderListResponse['groups'][number]>();
+    for (const s of suggestions) {
+      const supplier = s.supplierId ? supplierRows.get(s.supplierId)! : null;
+      let g = groups.get(s.supplierId);
+      if (!g) groups.set(s.supplierId, (g = { supplierId: s.supplierId, supplierName: s.supplierName, currency: s.currency, totalMinor: 0, minOrderValueMinor: supplier?.minOrderValueMinor ?? 0, shortfallMinor: 0, partIds: [] }));
+      g.totalMinor += s.valueMinor ?? 0;
+      g.partIds.push(s.partId);
+    }
+    for (const g of groups.values()) g.shortfallMinor = Math.max(0, g.minOrderValueMinor - g.totalMinor);
+
+    const health = await stockHealth(shopId, parts, pools, issuedDaily, now, window, deadStockDays);
+    return {
+      generatedAt: now.toISOString(),
+      settings: { demandWindowDays: window, deadStockDays, serviceLevel, orderingCostMinor, holdingCostRatePercent, currency },
+      suggestions,
+      groups: [...groups.values()],
+      ...health,
+      suggestionListings,
+    };
+  }
+
+  /** Dead stock: on hand, not issued for `deadStockDays` (or never); slow movers: on hand for more than a year of the window's demand. */
+  async function stockHealth(shopId: string, parts: Map<string, PartRow>, pools: Map<string, { quantity: number; value: number }>, issuedDaily: Map<string, number[]>, now: Date, window: number, deadStockDays: number) {
+    const last = new Map(
+      (await db.reader.query<Array<{ partId: string; at: string }>>(`SELECT part_id AS partId, MAX(occurred_at) AS at FROM stock_movements WHERE shop_id = ? AND kind = 'issued' GROUP BY part_id`, [shopId])).map((r) => [r.partId, parseSqlDate(r.at)]),
+    );
+    const slowMovers: ReorderListResponse['slowMovers'] = [];
+    const deadStock: ReorderListResponse['deadStock'] = [];
+    for (const [partId, pool] of pools) {
+      const part = parts.get(partId);
+      if (!part || pool.quantity <= 0) continue;
+      const lastIssuedAt = last.get(partId) ?? null;
+      const issued = (issuedDaily.get(partId) ?? []).reduce((s, d) => s + d, 0);
+      const row = { partId, partNumber: part.number, description: part.description, onHand: pool.quantity, valueMinor: pool.value, lastIssuedAt: lastIssuedAt?.toISOString() ?? null, issuedInWindow: issued };
+      if (!lastIssuedAt || now.getTime() - lastIssuedAt.getTime() > deadStockDays * DAY) deadStock.push(row);
+      else if (issued === 0 || pool.quantity / (issued / window) > 365) slowMovers.push(row);
+    }
+    const byValue = (a: { valueMinor: number }, b: { valueMinor: number }) => b.valueMinor - a.valueMinor;
+    return { slowMovers: slowMovers.sort(byValue), deadStock: deadStock.sort(byValue) };
+  }
+
+  return {
+    async list(shopId: string): Promise<ReorderListResponse> {
+      const { suggestionListings: _l, ...response } = await list(shopId);
+      return response;
+    },
+
+    /**
+     * Turns suggestions into draft orders, one per supplier, at the listed prices, in one
+     * transaction. A foreign-currency supplier takes the rate of its latest order in that currency;
+     * suggestions without a supplier (or without a known rate) are skipped with the reason.
+     */
+    async draftOrders(shopId: string, partIds: string[], actor: AuditActor): Promise<{ orders: PurchaseOrder[]; skipped: Array<{ partId: string; reason: string }> }> {
+      const computed = await list(shopId);
+      const wanted = new Set(partIds);
+      const skipped: Array<{ partId: string; reason: string }> = [];
+      const bySupplier = new Map<string, ReorderSuggestion[]>();
+      for (const id of wanted) {
+        const s = computed.suggestions.find((x) => x.partId === id);
+        if (!s) skipped.push({ partId: id, reason: 'Not on the reorder list (nothing is due, or no such part in this shop).' });
+        else if (!s.supplierId) skipped.push({ partId: id, reason: 'No supplier lists this part.' });
+        else bySupplier.set(s.supplierId, [...(bySupplier.get(s.supplierId) ?? []), s]);
+      }
+      const rates = new Map<string, string>();
+      for (const supplierId of bySupplier.keys()) {
+        const supplier = (await db.reader.findOne(SupplierEntity, { where: { shopId, id: supplierId } })) as SupplierRow;
+        if (supplier.currency === computed.settings.currency) continue;
+        const [latest] = await db.reader.query<Array<{ rate: string }>>(`SELECT exchange_rate AS rate FROM purchase_orders WHERE shop_id = ? AND currency = ? ORDER BY created_at DESC LIMIT 1`, [shopId, supplier.currency]);
+        if (latest) rates.set(supplierId, latest.rate);
+        else {
+          for (const s of bySupplier.get(supplierId)!) skipped.push({ partId: s.partId, reason: `${supplier.name} invoices in ${supplier.currency} and no rate is known yet: write this order by hand with the rate.` });
+          bySupplier.delete(supplierId);
+        }
+      }
+      const ids = await db.write(async (manager) => {
+        const out: string[] = [];
+        for (const [supplierId, list] of bySupplier) {
+          out.push(
+            await orders.insertDraft(
+              manager,
+              shopId,
+              {
+                supplierId,
+                exchangeRate: rates.get(supplierId),
+                note: 'Drafted from the reorder list.',
+                lines: list.map((s) => ({ partId: s.partId, quantity: s.quantity, unitPriceMinor: s.unitPriceMinor ?? undefined, coreDepositMinor: 0, purpose: null })),
+              },
+              actor,
+            ),
+          );
+        }
+        return out;
+      });
+      return { orders: await Promise.all(ids.map((id) => orders.get(shopId, id))), skipped };
+    },
+  };
+}
+
+const round2 = (n: number) => Math.round(n * 100) / 100;
+
+/** The preferred supplier's listing, else the cheapest listing of an active supplier (ties by name). */
+function chooseListing(listings: ListingRow[], preferredSupplierId: string | null, suppliers: Map<string, SupplierRow>): ListingRow | null {
+  const usable = listings.filter((l) => suppliers.get(l.supplierId)?.active);
+  const preferred = usable.find((l) => l.supplierId === preferredSupplierId);
+  if (preferred) return preferred;
+  return usable.sort((a, b) => a.priceMinor - b.priceMinor || suppliers.get(a.supplierId)!.name.localeCompare(suppliers.get(b.supplierId)!.name))[0] ?? null;
+}
+
+/** Days with demand, split by the number issued under (the chart stacks them). */
+function historyOf(byFeeder: Map<string, Feed>, start: number, window: number): ReorderSuggestion['history'] {
+  const out: ReorderSuggestion['history'] = [];
+  for (let i = 0; i < window; i++) {
+    const byNumber: Record<string, number> = {};
+    for (const f of byFeeder.values()) if (f.daily[i]! > 0) byNumber[f.number] = round2(f.daily[i]!);
+    out.push({ date: new Date(start + i * DAY).toISOString().slice(0, 10), byNumber });
+  }
+  return out;
+}
+
+export type ReorderService = ReturnType<typeof createReorderService>;
