@@ -1,6 +1,7 @@
 /* eslint-disable @nx/enforce-module-boundaries -- the seed writes through the API's own data layer
    (entities, migrations, write lock); see docs/decisions/002-module-boundaries.md. */
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
+import path from 'node:path';
 import type { DataSource } from 'typeorm';
 import type { ShopRole } from '@tappet/contracts';
 import { databaseFor, type Database } from '../apps/api/src/db/write-lock';
@@ -12,6 +13,11 @@ import { InvitationEntity } from '../apps/api/src/modules/staff/staff.entity';
 import { invitationTtlMs } from '../apps/api/src/modules/staff/staff.service';
 import { ApiKeyEntity } from '../apps/api/src/modules/api-keys/api-keys.entity';
 import { seedCatalogueDemo } from './catalogue-demo';
+import { seedBillingDemo } from './billing-demo';
+import { seedStockDemo } from './stock-demo';
+import { seedPurchasingDemo } from './purchasing-demo';
+import { renderVehiclesDemoMedia, seedVehiclesDemo, storeVehiclesDemoFiles, type DemoStoredFile } from './vehicles-demo';
+import { seedJobsDemo } from './jobs-demo';
 
 /** The demo password of every demo account. Public by design: never use it for real data. */
 export const demoPassword = 'tappet-demo';
@@ -43,11 +49,14 @@ export const demoSignIns = people.map((p) => ({ email: p.email, roles: p.platfor
  * platform admin. All sign in with {@link demoPassword}. Does nothing when any user exists.
  * Writes go through the data source's one write lock. Returns whether it seeded.
  */
-export async function seedDemo(source: DataSource | Database, at: Date = new Date()): Promise<boolean> {
+export async function seedDemo(source: DataSource | Database, at: Date = new Date(), options: { uploadsDir?: string } = {}): Promise<boolean> {
   const db = 'write' in source ? source : databaseFor(source);
   if ((await db.reader.count(UserEntity)) > 0) return false;
   // Hashed before taking the lock (slow work); the seed is exempt from the common-password rule.
   const hashes = await Promise.all(people.map(() => hashPassword(demoPassword)));
+  // Vehicle photos and documents are drawn before taking the lock (slow work); stored after commit.
+  const vehicleMedia = await renderVehiclesDemoMedia();
+  let vehicleFiles: DemoStoredFile[] = [];
   const actor = { userId: null, ip: null };
   await db.write(async (manager) => {
     const shops = {
@@ -65,6 +74,11 @@ export async function seedDemo(source: DataSource | Database, at: Date = new Dat
       }
     }
     await seedCatalogueDemo(manager, { harbour: shops.harbour.id, brackenfold: shops.brackenfold.id }, at);
+    await seedBillingDemo(manager, { harbour: shops.harbour.id, brackenfold: shops.brackenfold.id }, at);
+    await seedStockDemo(manager, { harbour: shops.harbour.id, brackenfold: shops.brackenfold.id }, at);
+    await seedPurchasingDemo(manager, shops.harbour.id, { owner: userIds.get('owner@harbour-works.test')!, buyer: userIds.get('buyer@harbour-works.test')! }, at);
+    vehicleFiles = await seedVehiclesDemo(manager, shops.harbour.id, { owner: userIds.get('owner@harbour-works.test')!, mechanic: userIds.get('mechanic@harbour-works.test')! }, at, vehicleMedia);
+    await seedJobsDemo(manager, shops.harbour.id, { owner: userIds.get('owner@harbour-works.test')!, mechanic: userIds.get('mechanic@harbour-works.test')! }, at);
 
     // Shop administration: an invitation still open (the owner can resend it, and the new link
     // lands in the mail sink) and an API key for an invented integration. Neither token is known
@@ -105,5 +119,9 @@ export async function seedDemo(source: DataSource | Database, at: Date = new Dat
     await manager.insert(ApiKeyEntity, key);
     await recordAudit(manager, { shopId: shops.harbour.id, actor: ownerActor, action: 'api_key.created', entity: 'api_key', entityId: key.id, changes: { label: { before: null, after: key.label }, role: { before: null, after: 'viewer' } }, at });
   });
+  // The uploads folder sits beside the database file (env.ts: <data dir>/uploads), unless given.
+  const database = String(db.dataSource.options.database ?? '');
+  const uploadsDir = options.uploadsDir ?? (database && database !== ':memory:' ? path.join(path.dirname(database), 'uploads') : null);
+  if (uploadsDir) await storeVehiclesDemoFiles(uploadsDir, vehicleFiles);
   return true;
 }

@@ -15,6 +15,11 @@ const env = {
   SMTP_PORT: process.env.E2E_SMTP_PORT ?? '1125',
   MAIL_SINK_HTTP_PORT: process.env.E2E_SINK_HTTP_PORT ?? '1180',
   LOG_LEVEL: 'warn',
+  // The fake Stripe API sits 9000 above the app's port (tests compute the same).
+  FAKE_STRIPE_PORT: String(Number(process.env.E2E_PORT ?? '3100') + 9000),
+  FAKE_STRIPE_CATALOGUE: 'tools/fake-stripe/demo-catalogue.json',
+  STRIPE_API_URL: `http://127.0.0.1:${Number(process.env.E2E_PORT ?? '3100') + 9000}`,
+  STRIPE_WEBHOOK_URL: `http://127.0.0.1:${process.env.E2E_PORT ?? '3100'}/api/billing/webhook`,
 };
 const tsx = resolve('node_modules/.bin/tsx');
 
@@ -25,7 +30,12 @@ if (!existsSync('dist/apps/web/index.html')) {
 const seed = spawnSync(tsx, ['seeds/seed-cli.ts'], { stdio: 'inherit', env });
 if (seed.status !== 0) process.exit(1);
 
-const children = [spawn(tsx, ['tools/mail-sink/cli.ts'], { stdio: 'inherit', env }), spawn(tsx, ['apps/api/src/main.ts'], { stdio: 'inherit', env })];
+const children = [
+  spawn(tsx, ['tools/mail-sink/cli.ts'], { stdio: 'inherit', env }),
+  spawn(tsx, ['tools/fake-stripe/cli.ts'], { stdio: 'inherit', env }),
+  spawn(tsx, ['apps/api/src/main.ts'], { stdio: 'inherit', env }),
+];
+console.log(`Fake Stripe for the browser tests: ${env.STRIPE_API_URL}`);
 let stopping = false;
 const stop = () => {
   if (stopping) return;

@@ -9,6 +9,7 @@ const port = process.env.PORT ?? '3000';
 const dataDir = resolve(process.env.TAPPET_DATA_DIR ?? './data');
 const smtpPort = process.env.SMTP_PORT ?? '1025';
 const sinkHttpPort = process.env.MAIL_SINK_HTTP_PORT ?? '1080';
+const stripePort = process.env.FAKE_STRIPE_PORT ?? '12111';
 mkdirSync(dataDir, { recursive: true });
 
 const env = {
@@ -19,6 +20,11 @@ const env = {
   SMTP_HOST: process.env.SMTP_HOST ?? '127.0.0.1',
   SMTP_PORT: smtpPort,
   MAIL_SINK_HTTP_PORT: sinkHttpPort,
+  // The API's Stripe SDK talks to the local fake; the fake sends its signed webhooks back to the API.
+  FAKE_STRIPE_PORT: stripePort,
+  FAKE_STRIPE_CATALOGUE: process.env.FAKE_STRIPE_CATALOGUE ?? 'tools/fake-stripe/demo-catalogue.json',
+  STRIPE_API_URL: process.env.STRIPE_API_URL ?? `http://127.0.0.1:${stripePort}`,
+  STRIPE_WEBHOOK_URL: process.env.STRIPE_WEBHOOK_URL ?? `http://127.0.0.1:${port}/api/billing/webhook`,
 };
 if (env.TAPPET_MODE === 'production' || env.NODE_ENV === 'production') {
   console.error('npm start runs the local demo. In production run the API directly (see DEVELOPERS.md).');
@@ -62,6 +68,7 @@ console.log('Building the web app…');
 run('web build', 'npx', ['vite', 'build', '-c', 'apps/web/vite.config.ts', '--logLevel', 'warn']);
 
 start('mail sink', tsx, ['tools/mail-sink/cli.ts']);
+start('fake Stripe', tsx, ['tools/fake-stripe/cli.ts']);
 console.log('Migrating and seeding the demo database…');
 run('migrate and seed', tsx, ['seeds/seed-cli.ts']);
 const api = start('API', tsx, ['apps/api/src/main.ts']);
@@ -81,6 +88,7 @@ const base = `http://localhost:${port}`;
   console.log(`
   Tappet is running at ${base}
   Mail sink (every e-mail the app sends): http://localhost:${sinkHttpPort}
+  Fake Stripe (local payments stand-in, test card prefilled): http://127.0.0.1:${stripePort}
   Data folder: ${dataDir}
 
   Demo sign-ins (password: tappet-demo)

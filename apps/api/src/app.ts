@@ -19,7 +19,10 @@ import { catalogueRouter } from './modules/catalogue/catalogue.router';
 import { createCatalogueService } from './modules/catalogue/catalogue.service';
 import { lookupRouter } from './modules/lookup/lookup.router';
 import { createLookupService } from './modules/lookup/lookup.service';
-import { sqlitePartSearchIndex } from './modules/lookup/part-search-index';
+import { memoryPartSearchIndex } from './modules/lookup/memory-part-search-index';
+import { stockRouter } from './modules/stock/stock.router';
+import { createStockService } from './modules/stock/stock.service';
+import { freeStockByPart } from './modules/stock/stock.queries';
 import { createImportService } from './modules/catalogue/imports/import.service';
 import { createAuthService, type AuthLimits } from './modules/auth/auth.service';
 import { meRouter } from './modules/me/me.router';
@@ -31,14 +34,38 @@ import { createStaffService } from './modules/staff/staff.service';
 import { auditCsvRouter, auditRouter } from './modules/audit/audit.router';
 import { createAuditQueries } from './modules/audit/audit.query';
 import { settingsRouter } from './modules/settings/settings.router';
+import { labelsRouter } from './modules/labels/labels.router';
+import { createLabelsService } from './modules/labels/labels.service';
 import { createSettingsService } from './modules/settings/settings.service';
 import { shopExportRouter } from './modules/shop-export/shop-export.router';
 import { createShopExportService } from './modules/shop-export/shop-export.service';
+import { customersRouter } from './modules/customers/customers.router';
+import { createCustomersService } from './modules/customers/customers.service';
+import { vehiclesRouter } from './modules/vehicles/vehicles.router';
+import { createVehiclesService } from './modules/vehicles/vehicles.service';
+import { checklistTemplatesRouter, jobsRouter } from './modules/jobs/jobs.router';
+import { createJobsService } from './modules/jobs/jobs.service';
+import { localFileStore, type FileStore } from './modules/uploads/file-store';
 import { requireAuth } from './middleware/authenticate';
+import type Stripe from 'stripe';
+import { readOnlyPreflight } from './middleware/read-only-shop';
+import { billingRouter, billingWebhookRouter } from './modules/billing/billing.router';
+import { createBillingService } from './modules/billing/billing.service';
+import { createStripeClient, stripeSettings } from './modules/billing/stripe-client';
+import { platformRouter } from './modules/platform/platform.router';
+import { createPlatformService } from './modules/platform/platform.service';
+import { supportAccessRouter } from './modules/platform/support-access.router';
+import { createSupportAccessService } from './modules/platform/support-access.service';
 import { tenantContext } from './middleware/tenant-context';
 import { createShopsService } from './modules/shops/shops.service';
 import { testSupportRouter } from './modules/test-support/test-support.router';
 import { buildOpenApiDocument } from './openapi/openapi';
+import { purchasingRouter } from './modules/purchasing/purchasing.router';
+import { createSuppliersService } from './modules/purchasing/suppliers.service';
+import { createListingsImportService } from './modules/purchasing/listings-import.service';
+import { createOrdersService } from './modules/purchasing/orders.service';
+import { createReorderService } from './modules/purchasing/reorder.service';
+import { createReturnsService } from './modules/purchasing/returns.service';
 
 const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../..');
 
@@ -50,10 +77,14 @@ export interface AppDeps {
   logger?: Logger;
   authLimits?: Partial<AuthLimits>;
   rateLimitStore?: RateLimitStore;
+  /** The Stripe SDK client; default one built from env (the local fake outside production). */
+  stripe?: Stripe;
   /** Built web app; default `dist/apps/web` in the repo. */
   webDir?: string;
   /** Shipped fonts; default `fonts/` in the repo. */
   fontsDir?: string;
+  /** Where uploaded photos and documents are kept; default a folder store at env.uploadsDir. */
+  fileStore?: FileStore;
 }
 
 /** Builds the Express app (no listen): API, security headers, logs, the web app and fonts. */
@@ -65,13 +96,30 @@ export function createApp(deps: AppDeps): Express {
   const auth = createAuthService({ db, env, clock, mailer, limits: deps.authLimits, rateLimitStore: deps.rateLimitStore, onMailError: (err) => logger.error({ err }, 'e-mail failed') });
   const shops = createShopsService({ db, clock });
   const catalogue = createCatalogueService({ db, clock });
-  const lookup = createLookupService({ index: sqlitePartSearchIndex(() => db.reader), graphOf: (shopId) => catalogue.graphOf(shopId) });
+  const lookup = createLookupService({ index: memoryPartSearchIndex({ reader: () => db.reader, versionOf: (shopId) => catalogue.graphOf(shopId) }), graphOf: (shopId) => catalogue.graphOf(shopId), stockOf: (shopId, partIds) => freeStockByPart(db.reader, shopId, partIds) });
+  const stock = createStockService({ db, clock, graphOf: (shopId) => catalogue.graphOf(shopId) });
   const imports = createImportService({ db, clock, catalogue });
   const staff = createStaffService({ db, env, clock, mailer, rateLimitStore: deps.rateLimitStore, onMailError: (err) => logger.error({ err }, 'e-mail failed') });
   const apiKeys = createApiKeysService({ db, clock });
   const audit = createAuditQueries({ db });
   const settings = createSettingsService({ db, clock });
+  const labels = createLabelsService({ db });
   const shopExport = createShopExportService({ db, clock, uploadsDir: env.uploadsDir });
+  const customers = createCustomersService({ db, clock });
+  const vehicles = createVehiclesService({ db, clock, files: deps.fileStore ?? localFileStore(env.uploadsDir) });
+  const jobs = createJobsService({ db, clock, files: deps.fileStore ?? localFileStore(env.uploadsDir) });
+  const billing = createBillingService({ db, clock, stripe: deps.stripe ?? createStripeClient(env), webhookSecret: stripeSettings(env).webhookSecret, publicUrl: env.publicUrl });
+  const support = createSupportAccessService({ db, clock });
+  const platform = createPlatformService({ db, clock, billing, staff });
+  const suppliers = createSuppliersService({ db, clock });
+  const purchaseOrders = createOrdersService({ db, clock, mailer, onMailError: (err) => logger.error({ err }, 'e-mail failed') });
+  const purchasing = {
+    suppliers,
+    listingsImport: createListingsImportService({ db, clock }),
+    orders: purchaseOrders,
+    reorder: createReorderService({ db, clock, catalogue, suppliers, orders: purchaseOrders }),
+    returns: createReturnsService({ db, clock }),
+  };
   const https = env.publicUrl.startsWith('https:');
 
   const app = express();
@@ -118,6 +166,8 @@ export function createApp(deps: AppDeps): Express {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
+  // Stripe's webhooks: signed raw bodies, so before the CSRF check and the JSON parser.
+  api.use('/billing/webhook', billingWebhookRouter({ billing }));
   api.use(csrfProtection(env));
   api.use(express.json({ limit: '100kb', type: 'application/json' }));
   api.get('/health', (_req, res) => {
@@ -131,13 +181,25 @@ export function createApp(deps: AppDeps): Express {
   api.use('/auth', authRouter({ env, auth }));
   api.use('/me', meRouter({ auth }));
   api.use('/invitations', invitationsRouter({ env, staff, auth }));
+  // Before every shop route: billing state brought up to date, support grants noted (and audited).
+  api.use('/shops/:shopId', readOnlyPreflight(billing), support.preflight());
+  api.use('/shops/:shopId/billing', requireAuth, tenantContext(db), billingRouter({ billing }));
+  api.use('/shops/:shopId/support-access', requireAuth, tenantContext(db), supportAccessRouter({ support }));
+  api.use('/platform', platformRouter({ platform, billing }));
   // Shop administration, each behind the caller's (or API key's) own shop.
   api.use('/shops/:shopId/staff', requireAuth, tenantContext(db), staffRouter({ staff }));
   api.use('/shops/:shopId/api-keys', requireAuth, tenantContext(db), apiKeysRouter({ apiKeys }));
   api.use('/shops/:shopId/audit-events', requireAuth, tenantContext(db), auditRouter({ audit }));
   api.use('/shops/:shopId/audit-events.csv', requireAuth, tenantContext(db), auditCsvRouter({ audit }));
   api.use('/shops/:shopId/settings', requireAuth, tenantContext(db), settingsRouter({ settings }));
+  api.use('/shops/:shopId/labels', requireAuth, tenantContext(db), labelsRouter({ labels }));
+  api.use('/shops/:shopId/purchasing', requireAuth, tenantContext(db), purchasingRouter(purchasing));
   api.use('/shops/:shopId/export.zip', requireAuth, tenantContext(db), shopExportRouter({ shopExport }));
+  api.use('/shops/:shopId/customers', requireAuth, tenantContext(db), customersRouter({ customers }));
+  api.use('/shops/:shopId/vehicles', requireAuth, tenantContext(db), vehiclesRouter({ vehicles }));
+  api.use('/shops/:shopId/jobs', requireAuth, tenantContext(db), jobsRouter({ jobs }));
+  api.use('/shops/:shopId/checklist-templates', requireAuth, tenantContext(db), checklistTemplatesRouter({ jobs }));
+  api.use('/shops/:shopId/stock', requireAuth, tenantContext(db), stockRouter({ stock }));
   api.use('/shops/:shopId', lookupRouter({ db, lookup }));
   api.use('/shops/:shopId', catalogueRouter({ db, catalogue, imports }));
   api.use('/shops', shopsRouter({ db, shops }));

@@ -32,6 +32,18 @@ const signedInScreens = [
   ['shop', (shopId: string) => `/shops/${shopId}/shop`],
   ['API documentation', () => '/api-docs'],
   ['not found', () => '/no-such-page'],
+  ['purchasing: reorder list', (shopId: string) => `/shops/${shopId}/purchasing/reorder`],
+  ['purchasing: orders', (shopId: string) => `/shops/${shopId}/purchasing/orders`],
+  ['purchasing: suppliers', (shopId: string) => `/shops/${shopId}/purchasing/suppliers`],
+  ['purchasing: returns', (shopId: string) => `/shops/${shopId}/purchasing/returns`],
+  ['stock', (shopId: string) => `/shops/${shopId}/stock`],
+  ['stock: movements', (shopId: string) => `/shops/${shopId}/stock/movements`],
+  ['stock: holds', (shopId: string) => `/shops/${shopId}/stock/holds`],
+  ['stock: bins', (shopId: string) => `/shops/${shopId}/stock/bins`],
+  ['stock: value', (shopId: string) => `/shops/${shopId}/stock/value`],
+  ['vehicles', (shopId: string) => `/shops/${shopId}/vehicles`],
+  ['jobs: board', (shopId: string) => `/shops/${shopId}/jobs`],
+  ['jobs: checklist templates', (shopId: string) => `/shops/${shopId}/checklist-templates`],
 ] as const;
 
 for (const scheme of ['light', 'dark'] as const) {

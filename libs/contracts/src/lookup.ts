@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { idSchema } from './common';
 import { partOriginSchema, partStatusSchema } from './catalogue';
+import { stockSummarySchema } from './stock';
 
 // Lookup that forgives (issue 5): one search box over numbers, supplier numbers and descriptions.
 
@@ -43,6 +44,8 @@ export const partSearchResultSchema = z.object({
   match: lookupMatchSchema,
   /** Why the part matched, in plain words ("supplier number 12-345", "close to 71-3465 (1 typo)"). */
   reason: z.string(),
+  /** On hand, held and free in total and per bin and condition (issue 6). */
+  stock: stockSummarySchema.optional(),
 });
 export type PartSearchResult = z.infer<typeof partSearchResultSchema>;
 

@@ -29,3 +29,4 @@ export * from './money';
 export * from './valuation';
 export * from './reorder';
 export * from './search';
+export * from './checklists';

@@ -116,6 +116,12 @@ describe('read-only shop', () => {
     expect(ability.can('read', subjectOf('Part', { shopId: shopA }))).toBe(true);
     expect(ability.can('export', subjectOf('ShopExport', { shopId: shopA }))).toBe(true);
   });
+  it('lets the owner pay again and grant support access', () => {
+    expect(ability.can('update', subjectOf('Billing', { shopId: shopA }))).toBe(true);
+    expect(ability.can('create', subjectOf('SupportAccess', { shopId: shopA }))).toBe(true);
+    const buyer = defineAbilityFor(me, inShop('buyer', { writable: false }));
+    expect(buyer.can('update', subjectOf('Billing', { shopId: shopA }))).toBe(false);
+  });
 });
 
 describe('platform admin', () => {

@@ -150,7 +150,9 @@ export function defineAbilityFor(actor: Actor, shop: ShopContext | null): AppAbi
       cannot('manage', ['Staff', 'ApiKey', 'Billing', 'SupportAccess']);
     }
     if (shop.writable === false) {
-      cannot(writeActions, 'all').because('This shop is read-only while its subscription is suspended or cancelled.');
+      // Paying again and asking support for help stay open: they are how a shop gets back to writing.
+      const locked = subjects.filter((s) => s !== 'Billing' && s !== 'SupportAccess');
+      cannot(writeActions, locked).because('This shop is read-only while its subscription is suspended or cancelled.');
     }
   }
 

@@ -27,3 +27,13 @@ export { PartNumber, Num } from './part-number';
 export { MenuButton, type MenuButtonProps, type MenuItem } from './menu-button';
 export { useTheme, applyStoredTheme, type ThemeChoice } from './theme';
 export { ThemeMenu } from './theme-menu';
+export {
+  CameraScanButton,
+  CameraScanDialog,
+  cameraProblemMessages,
+  cameraProblemOf,
+  type CameraProblem,
+  type CameraScanButtonProps,
+  type CameraScanDialogProps,
+} from './camera-scanner';
+export { scanFormats, type ScanFormat } from './barcode-engine';

@@ -5,7 +5,7 @@ import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import type { Test } from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { defineAbilityFor, subjectOf, type Action, type AppAbility, type SubjectName } from '@tappet/permissions';
 import type { ShopRole } from '@tappet/contracts';
 import { mountedApiRoutes } from '../test-support/mounted-routes';
@@ -13,7 +13,15 @@ import { createTestContext, csrf, seedShop, signedInAgent, type TestContext } fr
 import { createShopWithUsers } from '../modules/test-support/test-support.service';
 import { seedCatalogueFixture, type CatalogueFixture } from '../modules/catalogue/catalogue.test-fixture';
 import { seedShopAdminFixture, type ShopAdminFixture } from '../modules/staff/shop-admin.test-fixture';
+import { seedLabelBin } from '../modules/labels/labels.test-fixture';
+import { seedStockFixture, type StockFixture } from '../modules/stock/stock.test-fixture';
+import { seedVehicleFixture, tinyPdf, type VehicleFixture } from '../modules/vehicles/vehicles.test-fixture';
 import { AuditEventEntity } from '../modules/audit/audit.entity';
+import { seedPurchasingFixture, type PurchasingFixture } from '../modules/purchasing/purchasing.test-fixture';
+// eslint-disable-next-line @nx/enforce-module-boundaries -- the repo's own fake Stripe API (tools/), for checkout and portal routes.
+import { startFakeStripe, type FakeStripe } from '../../../../tools/fake-stripe/server.ts';
+import { seedPlatformFixture, type PlatformFixture } from '../modules/platform/platform.test-fixture';
+import { seedJobsFixture, type JobsFixture } from '../modules/jobs/jobs.test-fixture';
 
 type Persona = 'anonymous' | ShopRole | 'outsider' | 'platformAdmin';
 const personas: Persona[] = ['anonymous', 'owner', 'mechanic', 'buyer', 'viewer', 'outsider', 'platformAdmin'];
@@ -24,6 +32,16 @@ interface World {
   people: Record<Exclude<Persona, 'anonymous'>, { email: string; password: string }>;
   catalogue: CatalogueFixture;
   admin: ShopAdminFixture;
+  purchasing: PurchasingFixture;
+  /** A bin holding the catalogue fixture's part, for label routes. */
+  labelBinId: string;
+  vehicles: VehicleFixture;
+  stock: StockFixture;
+  /** Plans, shops to suspend, a read-only shop, support grants (issue 11). */
+  platform: PlatformFixture;
+  /** Jobs on the vehicle fixture, assigned to nobody (issue 10); seeded after vehicles and stock. */
+  jobs: JobsFixture;
+  mechanicId: string;
 }
 
 type Access =
@@ -34,7 +52,9 @@ type Access =
   /** Members of the shop in the request; others get 404. */
   | { kind: 'member'; status: number }
   /** Members whose ability allows `action` on `subject`; other members 403, non-members 404. */
-  | { kind: 'ability'; action: Action; subject: SubjectName; status: number };
+  | { kind: 'ability'; action: Action; subject: SubjectName; status: number }
+  /** Platform admins only; everyone else signed in gets 403. */
+  | { kind: 'platform'; status: number };
 
 interface Entry {
   access: Access;
@@ -44,6 +64,49 @@ interface Entry {
 const matrix: Record<string, Entry> = {
   'GET /api/health': { access: { kind: 'public', status: 200 }, call: (a) => a.get('/api/health') },
   'GET /api/openapi.json': { access: { kind: 'public', status: 200 }, call: (a) => a.get('/api/openapi.json') },
+  // Billing, support access and the platform console (issue 11).
+  // No signature: reachable by anyone, refused with 400 and nothing changed.
+  'POST /api/billing/webhook': { access: { kind: 'public', status: 400 }, call: (a) => a.post('/api/billing/webhook').set('Content-Type', 'application/json').send('{"id":"evt_matrix"}') },
+  'GET /api/shops/:shopId/billing/status': { access: { kind: 'ability', action: 'read', subject: 'Shop', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/billing/status`) },
+  'GET /api/shops/:shopId/billing': { access: { kind: 'ability', action: 'read', subject: 'Billing', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/billing`) },
+  'POST /api/shops/:shopId/billing/checkout': {
+    access: { kind: 'ability', action: 'update', subject: 'Billing', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/billing/checkout`).set(csrf).send({ planId: w.platform.planId }),
+  },
+  // Runs after checkout, which gave the shop its Stripe customer.
+  'POST /api/shops/:shopId/billing/portal': { access: { kind: 'ability', action: 'update', subject: 'Billing', status: 200 }, call: (a, w) => a.post(`/api/shops/${w.shopId}/billing/portal`).set(csrf) },
+  'GET /api/shops/:shopId/support-access': { access: { kind: 'ability', action: 'read', subject: 'SupportAccess', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/support-access`) },
+  'POST /api/shops/:shopId/support-access': {
+    access: { kind: 'ability', action: 'create', subject: 'SupportAccess', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/support-access`).set(csrf).send({ hours: 1 }),
+  },
+  // A grant is made before each of these calls (see beforeEach), except for the admin without one.
+  'DELETE /api/shops/:shopId/support-access': { access: { kind: 'ability', action: 'delete', subject: 'SupportAccess', status: 200 }, call: (a, w) => a.delete(`/api/shops/${w.shopId}/support-access`).set(csrf) },
+  'GET /api/platform/shops': { access: { kind: 'platform', status: 200 }, call: (a) => a.get('/api/platform/shops?q=matrix') },
+  'POST /api/platform/shops': {
+    access: { kind: 'platform', status: 201 },
+    call: (a, w) => a.post('/api/platform/shops').set(csrf).send({ name: `Matrix Onboarded ${randomUUID().slice(0, 8)}`, planId: w.platform.planId, ownerEmail: `owner-${randomUUID()}@matrix.test` }),
+  },
+  'POST /api/platform/shops/:shopId/suspend': {
+    access: { kind: 'platform', status: 200 },
+    call: (a, w) => a.post(`/api/platform/shops/${w.platform.nextShopToSuspend()}/suspend`).set(csrf).send({ reason: 'Matrix suspension' }),
+  },
+  'POST /api/platform/shops/:shopId/reactivate': {
+    access: { kind: 'platform', status: 200 },
+    call: (a, w) => a.post(`/api/platform/shops/${w.platform.nextSuspendedShopId()}/reactivate`).set(csrf).send({ reason: 'Matrix reactivation' }),
+  },
+  'GET /api/platform/plans': { access: { kind: 'platform', status: 200 }, call: (a) => a.get('/api/platform/plans') },
+  'POST /api/platform/plans': {
+    access: { kind: 'platform', status: 201 },
+    call: (a) => {
+      const key = randomUUID().slice(0, 8);
+      return a.post('/api/platform/plans').set(csrf).send({ name: `Matrix ${key}`, monthlyPriceMinor: 1000, currency: 'gbp', stripeLookupKey: `matrix_new_${key}`, seatLimit: 3, catalogueLimit: 100, vehicleLimit: null });
+    },
+  },
+  'PATCH /api/platform/plans/:planId': {
+    access: { kind: 'platform', status: 200 },
+    call: (a, w) => a.patch(`/api/platform/plans/${w.platform.planId}`).set(csrf).send({ monthlyPriceMinor: 1000 + Math.floor(Math.random() * 1e6) }),
+  },
   'POST /api/auth/sign-in': { access: { kind: 'public', status: 200 }, call: (a, w) => a.post('/api/auth/sign-in').set(csrf).send(w.people.viewer) },
   'POST /api/auth/password-reset/request': { access: { kind: 'public', status: 200 }, call: (a) => a.post('/api/auth/password-reset/request').set(csrf).send({ email: `nobody-${randomUUID()}@nowhere.test` }) },
   'POST /api/auth/password-reset/confirm': {
@@ -161,11 +224,297 @@ const matrix: Record<string, Entry> = {
   'GET /api/shops/:shopId/exports/parts.csv': { access: { kind: 'ability', action: 'read', subject: 'Part', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/exports/parts.csv`) },
   'GET /api/shops/:shopId/exports/links.csv': { access: { kind: 'ability', action: 'read', subject: 'Part', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/exports/links.csv`) },
   'GET /api/shops/:shopId/exports/fitments.csv': { access: { kind: 'ability', action: 'read', subject: 'Part', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/exports/fitments.csv`) },
+  // Labels (issue 7): printing is reading parts.
+  'GET /api/shops/:shopId/labels/options': { access: { kind: 'ability', action: 'read', subject: 'Part', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/labels/options`) },
+  'POST /api/shops/:shopId/labels/parts': {
+    access: { kind: 'ability', action: 'read', subject: 'Part', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/labels/parts`).set(csrf).send({ partIds: [w.catalogue.partId, w.catalogue.otherPartId] }),
+  },
+  'POST /api/shops/:shopId/labels/bins': {
+    access: { kind: 'ability', action: 'read', subject: 'Bin', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/labels/bins`).set(csrf).send({ binIds: [w.labelBinId], contents: true }),
+  },  // Vehicles and customers (issue 9).
+  'GET /api/shops/:shopId/customers': { access: { kind: 'ability', action: 'read', subject: 'Customer', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/customers?q=fixture`) },
+  'POST /api/shops/:shopId/customers': {
+    access: { kind: 'ability', action: 'create', subject: 'Customer', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/customers`).set(csrf).send({ name: `Matrix Customer ${randomUUID().slice(0, 8)}` }),
+  },
+  'GET /api/shops/:shopId/customers/:customerId': { access: { kind: 'ability', action: 'read', subject: 'Customer', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/customers/${w.vehicles.customerId}`) },
+  'PATCH /api/shops/:shopId/customers/:customerId': {
+    access: { kind: 'ability', action: 'update', subject: 'Customer', status: 200 },
+    call: (a, w) => a.patch(`/api/shops/${w.shopId}/customers/${w.vehicles.customerId}`).set(csrf).send({ notes: `Matrix ${randomUUID()}` }),
+  },
+  // Jobs and checklists (issue 10). The fixture's jobs are assigned to nobody, so a mechanic is
+  // refused (403) as the CASL condition on assigneeIds says; jobs.test.ts covers assigned ones.
+  'GET /api/shops/:shopId/jobs': { access: { kind: 'ability', action: 'read', subject: 'Job', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/jobs?closed=true`) },
+  'POST /api/shops/:shopId/jobs': {
+    access: { kind: 'ability', action: 'create', subject: 'Job', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/jobs`).set(csrf).send({ vehicleId: w.vehicles.vehicleId, title: 'Matrix job', customerRequest: 'Matrix', assigneeIds: [w.mechanicId] }),
+  },
+  'GET /api/shops/:shopId/jobs/:jobId': { access: { kind: 'ability', action: 'read', subject: 'Job', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}`) },
+  'PATCH /api/shops/:shopId/jobs/:jobId': {
+    access: { kind: 'ability', action: 'update', subject: 'Job', status: 200 },
+    call: (a, w) => a.patch(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}`).set(csrf).send({ notes: `Matrix ${randomUUID()}` }),
+  },
+  'POST /api/shops/:shopId/jobs/:jobId/status': {
+    access: { kind: 'ability', action: 'update', subject: 'Job', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/jobs/${w.jobs.nextOpenJobId()}/status`).set(csrf).send({ to: 'in_progress' }),
+  },
+  'POST /api/shops/:shopId/jobs/:jobId/checklists': {
+    access: { kind: 'ability', action: 'update', subject: 'Job', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}/checklists`).set(csrf).send({ templateId: w.jobs.templateId }),
+  },
+  'PUT /api/shops/:shopId/jobs/:jobId/checklists/:checklistId/items/:itemKey': {
+    access: { kind: 'ability', action: 'update', subject: 'Job', status: 200 },
+    call: (a, w) => a.put(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}/checklists/${w.jobs.checklistId}/items/lights`).set(csrf).send({ result: 'ok', note: `Matrix ${randomUUID()}` }),
+  },
+  'POST /api/shops/:shopId/jobs/:jobId/checklists/:checklistId/complete': {
+    access: { kind: 'ability', action: 'update', subject: 'Job', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}/checklists/${w.jobs.nextCompletableChecklistId()}/complete`).set(csrf),
+  },
+  'POST /api/shops/:shopId/jobs/:jobId/sign-offs': {
+    access: { kind: 'ability', action: 'signOff', subject: 'Job', status: 201 },
+    call: (a, w) => {
+      const item = w.jobs.nextSignOff();
+      return a.post(`/api/shops/${w.shopId}/jobs/${item.jobId}/sign-offs`).set(csrf).send({ checklistId: item.checklistId, itemKey: item.itemKey, reason: 'Matrix sign-off reason', customerTold: true, customerToldHow: 'By phone' });
+    },
+  },
+  'POST /api/shops/:shopId/jobs/:jobId/parts/holds': {
+    access: { kind: 'ability', action: 'hold', subject: 'Job', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}/parts/holds`).set(csrf).send({ partId: w.stock.partId, binId: w.stock.binId, condition: 'new', quantity: 1 }),
+  },
+  'POST /api/shops/:shopId/jobs/:jobId/parts/holds/:holdId/release': {
+    access: { kind: 'ability', action: 'hold', subject: 'Job', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}/parts/holds/${w.jobs.nextHoldId()}/release`).set(csrf),
+  },
+  'POST /api/shops/:shopId/jobs/:jobId/parts/issues': {
+    access: { kind: 'ability', action: 'issue', subject: 'Job', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}/parts/issues`).set(csrf).send({ partId: w.stock.partId, binId: w.stock.binId, condition: 'new', quantity: 1 }),
+  },
+  'POST /api/shops/:shopId/jobs/:jobId/parts/returns': {
+    access: { kind: 'ability', action: 'issue', subject: 'Job', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}/parts/returns`).set(csrf).send({ partId: w.stock.partId, binId: w.stock.binId, condition: 'new', quantity: 1 }),
+  },
+  'POST /api/shops/:shopId/jobs/:jobId/special-orders': {
+    access: { kind: 'ability', action: 'update', subject: 'Job', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}/special-orders`).set(csrf).send({ partId: w.stock.partId, quantity: 1 }),
+  },
+  'POST /api/shops/:shopId/jobs/:jobId/labour': {
+    access: { kind: 'ability', action: 'update', subject: 'Job', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}/labour`).set(csrf).send({ userId: w.mechanicId, workedOn: '2026-01-15', minutes: 15, description: 'Matrix labour' }),
+  },
+  'DELETE /api/shops/:shopId/jobs/:jobId/labour/:entryId': {
+    access: { kind: 'ability', action: 'update', subject: 'Job', status: 200 },
+    call: (a, w) => a.delete(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}/labour/${w.jobs.nextLabourId()}`).set(csrf),
+  },
+  'POST /api/shops/:shopId/jobs/:jobId/files': {
+    access: { kind: 'ability', action: 'update', subject: 'Job', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}/files`).set(csrf).attach('files', w.jobs.png, 'matrix.png'),
+  },
+  'GET /api/shops/:shopId/jobs/:jobId/files/:fileId/content': { access: { kind: 'ability', action: 'read', subject: 'Job', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}/files/${w.jobs.photoId}/content`) },
+  'GET /api/shops/:shopId/jobs/:jobId/files/:fileId/thumbnail': { access: { kind: 'ability', action: 'read', subject: 'Job', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}/files/${w.jobs.photoId}/thumbnail`) },
+  'GET /api/shops/:shopId/checklist-templates': { access: { kind: 'ability', action: 'read', subject: 'Job', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/checklist-templates`) },
+  'POST /api/shops/:shopId/checklist-templates': {
+    access: { kind: 'ability', action: 'update', subject: 'Settings', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/checklist-templates`).set(csrf).send({ name: `Matrix ${randomUUID().slice(0, 8)}`, items: [{ key: 'one', section: 'All', label: 'One item', kind: 'check', safety: false }] }),
+  },
+  'PATCH /api/shops/:shopId/checklist-templates/:templateId': {
+    access: { kind: 'ability', action: 'update', subject: 'Settings', status: 200 },
+    call: (a, w) => a.patch(`/api/shops/${w.shopId}/checklist-templates/${w.jobs.templateId}`).set(csrf).send({ description: `Matrix ${randomUUID()}` }),
+  },
+  'GET /api/shops/:shopId/vehicles': { access: { kind: 'ability', action: 'read', subject: 'Vehicle', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/vehicles?status=arrived`) },
+  'POST /api/shops/:shopId/vehicles': {
+    access: { kind: 'ability', action: 'create', subject: 'Vehicle', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/vehicles`).set(csrf).send({ kind: 'customer', marque: 'Matrix', model: 'Test', customerId: w.vehicles.customerId }),
+  },
+  'GET /api/shops/:shopId/vehicles/:vehicleId': { access: { kind: 'ability', action: 'read', subject: 'Vehicle', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/vehicles/${w.vehicles.vehicleId}`) },
+  'PATCH /api/shops/:shopId/vehicles/:vehicleId': {
+    access: { kind: 'ability', action: 'update', subject: 'Vehicle', status: 200 },
+    call: (a, w) => a.patch(`/api/shops/${w.shopId}/vehicles/${w.vehicles.vehicleId}`).set(csrf).send({ notes: `Matrix ${randomUUID()}` }),
+  },
+  'POST /api/shops/:shopId/vehicles/:vehicleId/status': {
+    access: { kind: 'ability', action: 'update', subject: 'Vehicle', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/vehicles/${w.vehicles.nextArrivedVehicleId()}/status`).set(csrf).send({ to: 'assessing' }),
+  },
+  'POST /api/shops/:shopId/vehicles/:vehicleId/odometer-readings': {
+    access: { kind: 'ability', action: 'update', subject: 'Vehicle', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/vehicles/${w.vehicles.vehicleId}/odometer-readings`).set(csrf).send({ value: 12000, unit: 'mi', readOn: '2026-01-10' }),
+  },
+  'POST /api/shops/:shopId/vehicles/:vehicleId/numbers-check': {
+    access: { kind: 'ability', action: 'update', subject: 'Vehicle', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/vehicles/${w.vehicles.vehicleId}/numbers-check`).set(csrf).send({ matching: true }),
+  },
+  'GET /api/shops/:shopId/vehicles/:vehicleId/timeline': { access: { kind: 'ability', action: 'read', subject: 'Vehicle', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/vehicles/${w.vehicles.vehicleId}/timeline`) },
+  'GET /api/shops/:shopId/vehicles/:vehicleId/fitment': { access: { kind: 'ability', action: 'read', subject: 'Vehicle', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/vehicles/${w.vehicles.vehicleId}/fitment`) },
+  'POST /api/shops/:shopId/vehicles/:vehicleId/files': {
+    access: { kind: 'ability', action: 'update', subject: 'Vehicle', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/vehicles/${w.vehicles.vehicleId}/files`).set(csrf).attach('files', w.vehicles.png, 'matrix.png').attach('files', tinyPdf, 'matrix.pdf'),
+  },
+  'GET /api/shops/:shopId/vehicles/:vehicleId/files/:fileId/content': {
+    access: { kind: 'ability', action: 'read', subject: 'Vehicle', status: 200 },
+    call: (a, w) => a.get(`/api/shops/${w.shopId}/vehicles/${w.vehicles.vehicleId}/files/${w.vehicles.documentId}/content`),
+  },
+  'GET /api/shops/:shopId/vehicles/:vehicleId/files/:fileId/thumbnail': {
+    access: { kind: 'ability', action: 'read', subject: 'Vehicle', status: 200 },
+    call: (a, w) => a.get(`/api/shops/${w.shopId}/vehicles/${w.vehicles.vehicleId}/files/${w.vehicles.photoId}/thumbnail`),
+  },
+  'DELETE /api/shops/:shopId/vehicles/:vehicleId/files/:fileId': {
+    access: { kind: 'ability', action: 'update', subject: 'Vehicle', status: 204 },
+    call: (a, w) => a.delete(`/api/shops/${w.shopId}/vehicles/${w.vehicles.vehicleId}/files/${w.vehicles.nextSpareFileId()}`).set(csrf),
+  },
+  // Stock (issue 6).
+  'GET /api/shops/:shopId/stock': { access: { kind: 'ability', action: 'read', subject: 'Stock', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/stock`) },
+  'GET /api/shops/:shopId/stock/bins': { access: { kind: 'ability', action: 'read', subject: 'Bin', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/stock/bins`) },
+  'POST /api/shops/:shopId/stock/bins': {
+    access: { kind: 'ability', action: 'create', subject: 'Bin', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/stock/bins`).set(csrf).send({ code: `MX-${randomUUID().slice(0, 8)}` }),
+  },
+  'PATCH /api/shops/:shopId/stock/bins/:binId': {
+    access: { kind: 'ability', action: 'update', subject: 'Bin', status: 200 },
+    call: (a, w) => a.patch(`/api/shops/${w.shopId}/stock/bins/${w.stock.otherBinId}`).set(csrf).send({ description: `Matrix ${randomUUID().slice(0, 8)}` }),
+  },
+  'GET /api/shops/:shopId/stock/movements': { access: { kind: 'ability', action: 'read', subject: 'Stock', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/stock/movements?kind=received`) },
+  'POST /api/shops/:shopId/stock/receipts': {
+    access: { kind: 'ability', action: 'receive', subject: 'Stock', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/stock/receipts`).set(csrf).send({ partId: w.stock.partId, binId: w.stock.binId, condition: 'new', quantity: 1, unitCostMinor: 250 }),
+  },
+  'POST /api/shops/:shopId/stock/issues': {
+    access: { kind: 'ability', action: 'issue', subject: 'Stock', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/stock/issues`).set(csrf).send({ partId: w.stock.partId, binId: w.stock.binId, condition: 'new', quantity: 1 }),
+  },
+  'POST /api/shops/:shopId/stock/returns': {
+    access: { kind: 'ability', action: 'issue', subject: 'Stock', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/stock/returns`).set(csrf).send({ partId: w.stock.partId, binId: w.stock.binId, condition: 'new', quantity: 1 }),
+  },
+  'POST /api/shops/:shopId/stock/adjustments': {
+    access: { kind: 'ability', action: 'adjust', subject: 'Stock', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/stock/adjustments`).set(csrf).send({ partId: w.stock.partId, binId: w.stock.binId, condition: 'new', quantityDelta: -1, reason: 'Matrix write-off' }),
+  },
+  'POST /api/shops/:shopId/stock/moves': {
+    access: { kind: 'ability', action: 'move', subject: 'Stock', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/stock/moves`).set(csrf).send({ partId: w.stock.partId, condition: 'new', fromBinId: w.stock.binId, toBinId: w.stock.otherBinId, quantity: 1 }),
+  },
+  'POST /api/shops/:shopId/stock/counts': {
+    access: { kind: 'ability', action: 'count', subject: 'Stock', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/stock/counts`).set(csrf).send({ partId: w.stock.partId, binId: w.stock.otherBinId, condition: 'new', countedQuantity: 50 }),
+  },
+  'GET /api/shops/:shopId/stock/holds': { access: { kind: 'ability', action: 'read', subject: 'Stock', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/stock/holds`) },
+  'POST /api/shops/:shopId/stock/holds': {
+    access: { kind: 'ability', action: 'hold', subject: 'Stock', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/stock/holds`).set(csrf).send({ partId: w.stock.partId, binId: w.stock.binId, condition: 'new', quantity: 1, purpose: 'Matrix hold' }),
+  },
+  'POST /api/shops/:shopId/stock/holds/:holdId/release': {
+    access: { kind: 'ability', action: 'hold', subject: 'Stock', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/stock/holds/${w.stock.nextHoldId()}/release`).set(csrf),
+  },
+  'GET /api/shops/:shopId/stock/parts/:partId': { access: { kind: 'ability', action: 'read', subject: 'Stock', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/stock/parts/${w.stock.partId}`) },
+  'GET /api/shops/:shopId/stock/valuation': { access: { kind: 'ability', action: 'read', subject: 'Stock', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/stock/valuation`) },
+  'GET /api/shops/:shopId/stock/valuation/history': { access: { kind: 'ability', action: 'read', subject: 'Stock', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/stock/valuation/history?months=6`) },
+  'GET /api/shops/:shopId/stock/valuation.csv': { access: { kind: 'ability', action: 'read', subject: 'Stock', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/stock/valuation.csv`) },
+  // Purchasing (issue 8).
+  'GET /api/shops/:shopId/purchasing/suppliers': { access: { kind: 'ability', action: 'read', subject: 'Supplier', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/purchasing/suppliers`) },
+  'POST /api/shops/:shopId/purchasing/suppliers': {
+    access: { kind: 'ability', action: 'create', subject: 'Supplier', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/purchasing/suppliers`).set(csrf).send({ name: `Matrix Supplier ${randomUUID().slice(0, 8)}`, currency: 'GBP', leadTimeDays: 5 }),
+  },
+  'GET /api/shops/:shopId/purchasing/suppliers/:supplierId': { access: { kind: 'ability', action: 'read', subject: 'Supplier', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/purchasing/suppliers/${w.purchasing.supplierId}`) },
+  'PATCH /api/shops/:shopId/purchasing/suppliers/:supplierId': {
+    access: { kind: 'ability', action: 'update', subject: 'Supplier', status: 200 },
+    call: (a, w) => a.patch(`/api/shops/${w.shopId}/purchasing/suppliers/${w.purchasing.supplierId}`).set(csrf).send({ notes: `Matrix ${randomUUID()}` }),
+  },
+  'GET /api/shops/:shopId/purchasing/suppliers/:supplierId/listings': {
+    access: { kind: 'ability', action: 'read', subject: 'Supplier', status: 200 },
+    call: (a, w) => a.get(`/api/shops/${w.shopId}/purchasing/suppliers/${w.purchasing.supplierId}/listings`),
+  },
+  'POST /api/shops/:shopId/purchasing/suppliers/:supplierId/listings': {
+    access: { kind: 'ability', action: 'update', subject: 'Supplier', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/purchasing/suppliers/${w.purchasing.supplierId}/listings`).set(csrf).send({ partId: w.purchasing.nextUnlistedPart().id, priceMinor: 123 }),
+  },
+  'POST /api/shops/:shopId/purchasing/listings/import': {
+    access: { kind: 'ability', action: 'import', subject: 'Supplier', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/purchasing/listings/import`).set(csrf).field('mode', 'preview').attach('file', Buffer.from(`supplier,part_number,price\r\n${w.purchasing.supplierName},PF-1000,9.99\r\n`), 'listings.csv'),
+  },
+  'PATCH /api/shops/:shopId/purchasing/listings/:listingId': {
+    access: { kind: 'ability', action: 'update', subject: 'Supplier', status: 200 },
+    call: (a, w) => a.patch(`/api/shops/${w.shopId}/purchasing/listings/${w.purchasing.listingId}`).set(csrf).send({ priceMinor: 1000 + Math.floor(Math.random() * 1e6) }),
+  },
+  'DELETE /api/shops/:shopId/purchasing/listings/:listingId': {
+    access: { kind: 'ability', action: 'update', subject: 'Supplier', status: 204 },
+    call: (a, w) => a.delete(`/api/shops/${w.shopId}/purchasing/listings/${w.purchasing.nextListingId()}`).set(csrf),
+  },
+  'GET /api/shops/:shopId/purchasing/parts/:partId': { access: { kind: 'ability', action: 'read', subject: 'Supplier', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/purchasing/parts/${w.purchasing.partId}`) },
+  'PUT /api/shops/:shopId/purchasing/parts/:partId': {
+    access: { kind: 'ability', action: 'update', subject: 'Supplier', status: 200 },
+    call: (a, w) => a.put(`/api/shops/${w.shopId}/purchasing/parts/${w.purchasing.partId}`).set(csrf).send({ preferredSupplierId: w.purchasing.supplierId, minQty: Math.floor(Math.random() * 1e6), maxQty: null }),
+  },
+  'GET /api/shops/:shopId/purchasing/settings': { access: { kind: 'ability', action: 'read', subject: 'Supplier', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/purchasing/settings`) },
+  'PATCH /api/shops/:shopId/purchasing/settings': {
+    access: { kind: 'ability', action: 'update', subject: 'Settings', status: 200 },
+    call: (a, w) => a.patch(`/api/shops/${w.shopId}/purchasing/settings`).set(csrf).send({ demandWindowDays: 7 + Math.floor(Math.random() * 1000) }),
+  },
+  'GET /api/shops/:shopId/purchasing/reorder-list': { access: { kind: 'ability', action: 'read', subject: 'PurchaseOrder', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/purchasing/reorder-list`) },
+  'GET /api/shops/:shopId/purchasing/orders': { access: { kind: 'ability', action: 'read', subject: 'PurchaseOrder', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/purchasing/orders?status=draft`) },
+  'POST /api/shops/:shopId/purchasing/orders': {
+    access: { kind: 'ability', action: 'create', subject: 'PurchaseOrder', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/purchasing/orders`).set(csrf).send({ supplierId: w.purchasing.supplierId, lines: [{ partId: w.purchasing.partId, quantity: 1 }] }),
+  },
+  'POST /api/shops/:shopId/purchasing/orders/from-reorder': {
+    access: { kind: 'ability', action: 'create', subject: 'PurchaseOrder', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/purchasing/orders/from-reorder`).set(csrf).send({ partIds: [w.purchasing.partId] }),
+  },
+  'GET /api/shops/:shopId/purchasing/orders/:orderId': { access: { kind: 'ability', action: 'read', subject: 'PurchaseOrder', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/purchasing/orders/${w.purchasing.orderId}`) },
+  'GET /api/shops/:shopId/purchasing/orders/:orderId/pdf': { access: { kind: 'ability', action: 'read', subject: 'PurchaseOrder', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/purchasing/orders/${w.purchasing.orderId}/pdf`) },
+  'PATCH /api/shops/:shopId/purchasing/orders/:orderId': {
+    access: { kind: 'ability', action: 'update', subject: 'PurchaseOrder', status: 200 },
+    call: (a, w) => a.patch(`/api/shops/${w.shopId}/purchasing/orders/${w.purchasing.nextDraftId()}`).set(csrf).send({ note: 'Matrix note' }),
+  },
+  'POST /api/shops/:shopId/purchasing/orders/:orderId/request-approval': {
+    access: { kind: 'ability', action: 'update', subject: 'PurchaseOrder', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/purchasing/orders/${w.purchasing.nextDraftId()}/request-approval`).set(csrf),
+  },
+  'POST /api/shops/:shopId/purchasing/orders/:orderId/approve': {
+    access: { kind: 'ability', action: 'approve', subject: 'PurchaseOrder', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/purchasing/orders/${w.purchasing.nextAwaitingId()}/approve`).set(csrf),
+  },
+  'POST /api/shops/:shopId/purchasing/orders/:orderId/reject': {
+    access: { kind: 'ability', action: 'approve', subject: 'PurchaseOrder', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/purchasing/orders/${w.purchasing.nextAwaitingId()}/reject`).set(csrf).send({ reason: 'Matrix rejection' }),
+  },
+  // A draft of 1,000.00, above the seeded buyer's 500.00 limit: the CASL `send` rule's spending-limit condition refuses the buyer.
+  'POST /api/shops/:shopId/purchasing/orders/:orderId/send': {
+    access: { kind: 'ability', action: 'send', subject: 'PurchaseOrder', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/purchasing/orders/${w.purchasing.nextDraftId()}/send`).set(csrf),
+  },
+  'POST /api/shops/:shopId/purchasing/orders/:orderId/cancel': {
+    access: { kind: 'ability', action: 'update', subject: 'PurchaseOrder', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/purchasing/orders/${w.purchasing.nextDraftId()}/cancel`).set(csrf).send({ reason: 'Matrix cancel' }),
+  },
+  'POST /api/shops/:shopId/purchasing/orders/:orderId/close': {
+    access: { kind: 'ability', action: 'update', subject: 'PurchaseOrder', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/purchasing/orders/${w.purchasing.nextSentId()}/close`).set(csrf).send({ reason: 'Matrix close' }),
+  },
+  'POST /api/shops/:shopId/purchasing/orders/:orderId/receipts': {
+    access: { kind: 'ability', action: 'receive', subject: 'Stock', status: 200 },
+    call: (a, w) => {
+      const orderId = w.purchasing.nextSentId();
+      return a.post(`/api/shops/${w.shopId}/purchasing/orders/${orderId}/receipts`).set(csrf).send({ lines: [{ lineId: w.purchasing.nextSentLineId(orderId), quantity: 1, binId: w.purchasing.binId }] });
+    },
+  },
+  'GET /api/shops/:shopId/purchasing/returns': { access: { kind: 'ability', action: 'read', subject: 'PurchaseOrder', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/purchasing/returns`) },
+  'POST /api/shops/:shopId/purchasing/returns': {
+    access: { kind: 'ability', action: 'update', subject: 'PurchaseOrder', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/purchasing/returns`).set(csrf).send({ supplierId: w.purchasing.supplierId, partId: w.purchasing.partId, binId: w.purchasing.binId, quantity: 1, reason: 'Matrix return', expectedCreditMinor: 1000 }),
+  },
+  'POST /api/shops/:shopId/purchasing/returns/:returnId/credit': {
+    access: { kind: 'ability', action: 'update', subject: 'PurchaseOrder', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/purchasing/returns/${w.purchasing.nextReturnId()}/credit`).set(csrf).send({ creditedMinor: 1000 }),
+  },
 };
 
 function expectedStatus(access: Access, persona: Persona, world: World): number {
   if (access.kind === 'public') return access.status;
   if (persona === 'anonymous') return 401;
+  if (access.kind === 'platform') return persona === 'platformAdmin' ? access.status : 403;
   if (access.kind === 'signed-in') return access.status;
   const role = persona === 'outsider' || persona === 'platformAdmin' ? null : persona;
   if (role === null) return 404;
@@ -176,8 +525,10 @@ function expectedStatus(access: Access, persona: Persona, world: World): number 
 
 let ctx: TestContext;
 let world: World;
+let fakeStripe: FakeStripe;
 beforeAll(async () => {
-  ctx = await createTestContext();
+  fakeStripe = await startFakeStripe({ port: 0, webhookUrl: null, webhookSecret: 'whsec_matrix_only' });
+  ctx = await createTestContext({ env: { STRIPE_API_URL: fakeStripe.url } });
   const shop = await seedShop(ctx);
   const other = await seedShop(ctx, ['owner']);
   const admin = await createShopWithUsers(ctx.db, ctx.clock, { roles: [], platformAdmin: true });
@@ -186,6 +537,13 @@ beforeAll(async () => {
     shopId: shop.shop.id,
     catalogue: await seedCatalogueFixture(ctx.db, shop.shop.id),
     admin: await seedShopAdminFixture(ctx.db, shop.shop.id, shop.byRole.owner.id),
+    purchasing: await seedPurchasingFixture(ctx.db, shop.shop.id),
+    labelBinId: '',
+    jobs: null as unknown as JobsFixture,
+    mechanicId: shop.byRole.mechanic.id,
+    vehicles: await seedVehicleFixture(ctx.db, shop.shop.id, ctx.env.uploadsDir),
+    stock: await seedStockFixture(ctx.db, shop.shop.id),
+    platform: await seedPlatformFixture(ctx.db, ctx.clock),
     people: {
       owner: member('owner'),
       mechanic: member('mechanic'),
@@ -195,8 +553,25 @@ beforeAll(async () => {
       platformAdmin: { email: admin.users[0]!.email, password: admin.password },
     },
   };
+  world.labelBinId = await seedLabelBin(ctx.db, shop.shop.id, 'MX-BIN', [{ partId: world.catalogue.partId, onHand: 3 }]);
+  world.jobs = await seedJobsFixture(ctx.db, shop.shop.id, ctx.env.uploadsDir, { vehicleId: world.vehicles.vehicleId, partId: world.stock.partId, binId: world.stock.binId, userId: world.mechanicId });
 });
-afterAll(() => ctx.close());
+afterAll(async () => {
+  await ctx.close();
+  await fakeStripe.close();
+});
+
+// Support grants (issue 11): none outlives its test, so a platform admin is an outsider unless a
+// test gives them one; the revoke route's samples get an active grant to revoke.
+let keepGrants = false;
+beforeEach(async (test) => {
+  if (test.task.name.startsWith('DELETE /api/shops/:shopId/support-access') && !test.task.name.endsWith('as platformAdmin')) {
+    await world.platform.grantSupport(world.shopId);
+  }
+});
+afterEach(async () => {
+  if (!keepGrants) await world.platform.revokeAllGrants();
+});
 
 describe('authorisation matrix', () => {
   for (const [route, entry] of Object.entries(matrix)) {
@@ -216,13 +591,19 @@ describe('authorisation matrix', () => {
 
 /** Write routes whose sample call records no audit event, each with the reason. Keep it short. */
 const unaudited: Record<string, string> = {
+  'POST /api/billing/webhook': 'the sample has no signature and must change nothing; processed events are audited (billing webhook tests)',
   'POST /api/auth/password-reset/request': 'answers alike for unknown addresses (the sample uses one); a real request is audited (auth tests)',
   'POST /api/auth/password-reset/confirm': 'the sample token is invalid; a real confirmation is audited (auth tests)',
   'POST /api/invitations/accept': 'needs a token from an e-mail; acceptance is audited (staff tests)',
+  'POST /api/shops/:shopId/purchasing/orders/from-reorder': 'the sample asks for a part with nothing due, so no draft is written; each draft it writes is audited as purchase_order.created (insertDraft)',
+  'POST /api/shops/:shopId/labels/parts': 'a read: renders a PDF of labels and changes nothing (POST only because a selection of ids does not fit a URL)',
+  'POST /api/shops/:shopId/labels/bins': 'a read: renders a PDF of labels and changes nothing',
 };
 
 /** Samples for routes whose matrix call writes nothing on purpose (a preview), so the check has a real write. */
 const auditSamples: Record<string, Entry['call']> = {
+  'POST /api/shops/:shopId/purchasing/listings/import': (a, w) =>
+    a.post(`/api/shops/${w.shopId}/purchasing/listings/import`).set(csrf).field('mode', 'commit').attach('file', Buffer.from(`supplier,part_number,price\r\n${w.purchasing.supplierName},${w.purchasing.nextUnlistedPart().number},9.99\r\n`), 'listings.csv'),
   'POST /api/shops/:shopId/imports': (a, w) =>
     a.post(`/api/shops/${w.shopId}/imports`).set(csrf).field('kind', 'parts').field('mode', 'commit').attach('file', Buffer.from(`number,description\r\nMX-${randomUUID().slice(0, 8)},Matrix\r\n`), 'parts.csv'),
 };
@@ -247,6 +628,60 @@ describe('audit coverage', () => {
       const res = await (auditSamples[route] ?? entry.call)(agent, world);
       expect(res.status, JSON.stringify(res.body)).toBeLessThan(300);
       expect(await ctx.db.reader.count(AuditEventEntity), `${route} wrote no audit event`).toBeGreaterThan(before);
+    });
+  }
+});
+
+// Two more personas (issue 11): a platform admin while the shop's owner grants support access, and
+// the owner of a suspended (read-only) shop.
+describe('platform admin with support access', () => {
+  const supportAbility = (w: World) => defineAbilityFor({ userId: 'u', isPlatformAdmin: true }, { shopId: w.shopId, role: 'owner', spendingLimitMinor: null, viaSupportGrant: true });
+  const expected = (access: Access, w: World): number => {
+    if (access.kind === 'public' || access.kind === 'signed-in' || access.kind === 'platform') return access.status;
+    // Support sees the shop's data, but is no member of it.
+    if (access.kind === 'member') return 404;
+    return supportAbility(w).can(access.action, subjectOf(access.subject, { shopId: w.shopId })) ? access.status : 403;
+  };
+  beforeAll(async () => {
+    keepGrants = true;
+    await world.platform.grantSupport(world.shopId);
+  });
+  afterAll(async () => {
+    keepGrants = false;
+    await world.platform.revokeAllGrants();
+  });
+  for (const [route, entry] of Object.entries(matrix)) {
+    it(`${route} as supportAdmin`, async () => {
+      const agent = await signedInAgent(ctx.app, world.people.platformAdmin.email, world.people.platformAdmin.password);
+      const res = await entry.call(agent, world);
+      expect(res.status, JSON.stringify(res.body)).toBe(expected(entry.access, world));
+    });
+  }
+});
+
+describe('owner of a suspended shop', () => {
+  const isShopRoute = (route: string) => / \/api\/shops\/:shopId(\/|$)/.test(route);
+  // Spare ids are not used up here: every write is refused before anything is looked up.
+  const readOnlyWorld = (): World => {
+    const fresh = <T extends object>(fixture: T): T =>
+      new Proxy(fixture, { get: (target, key, receiver) => (typeof key === 'string' && key.startsWith('next') ? () => randomUUID() : Reflect.get(target, key, receiver)) });
+    return { ...world, shopId: world.platform.readOnlyShop.shopId, catalogue: fresh(world.catalogue), admin: fresh(world.admin), vehicles: fresh(world.vehicles), stock: fresh(world.stock), platform: fresh(world.platform) };
+  };
+  for (const [route, entry] of Object.entries(matrix).filter(([r]) => isShopRoute(r))) {
+    const write = !route.startsWith('GET ');
+    const open = /\/(billing|support-access)(\/|$)/.test(route);
+    it(`${route} as suspendedOwner ${write && !open ? 'is refused as read-only' : 'is not refused as read-only'}`, async () => {
+      const { email, password } = world.platform.readOnlyShop.owner;
+      const agent = await signedInAgent(ctx.app, email, password);
+      const res = await entry.call(agent, readOnlyWorld());
+      if (write && !open) {
+        expect(res.status, JSON.stringify(res.body)).toBe(403);
+        expect(res.body.error.details).toEqual({ reason: 'shop_read_only', billingState: 'suspended' });
+        expect(res.body.error.message).toContain('Matrix suspension');
+      } else {
+        expect(res.body?.error?.details?.reason).not.toBe('shop_read_only');
+        expect(res.status, JSON.stringify(res.body)).toBeLessThan(500);
+      }
     });
   }
 });

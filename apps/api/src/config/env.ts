@@ -21,7 +21,8 @@ export interface Env {
   /** Express `trust proxy` setting; false unless TRUST_PROXY is set. */
   trustProxy: boolean | number | string;
   smtp: { host: string; port: number; user: string | null; pass: string | null; from: string };
-  stripe: { secretKey: string | null; webhookSecret: string | null };
+  /** `apiUrl` points the Stripe SDK elsewhere (the local fake); null talks to Stripe itself. */
+  stripe: { secretKey: string | null; webhookSecret: string | null; apiUrl: string | null };
   mailSinkHttpPort: number;
   session: { idleTimeoutMs: number; absoluteTimeoutMs: number };
   /** pino level of the request and error log. */
@@ -74,6 +75,7 @@ const rawSchema = z.object({
   SMTP_FROM: optionalText,
   STRIPE_SECRET_KEY: optionalText,
   STRIPE_WEBHOOK_SECRET: optionalText,
+  STRIPE_API_URL: optionalText.pipe(z.url({ error: 'STRIPE_API_URL must be an absolute http(s) URL', protocol: /^https?$/ }).optional()),
   MAIL_SINK_HTTP_PORT: optionalText.pipe(port('MAIL_SINK_HTTP_PORT').optional()),
   SESSION_IDLE_TIMEOUT_MINUTES: optionalText.pipe(minutes('SESSION_IDLE_TIMEOUT_MINUTES').optional()),
   SESSION_ABSOLUTE_TIMEOUT_MINUTES: optionalText.pipe(minutes('SESSION_ABSOLUTE_TIMEOUT_MINUTES').optional()),
@@ -141,7 +143,7 @@ export function loadEnv(source: Record<string, string | undefined> = process.env
       pass: raw.SMTP_PASS ?? null,
       from: raw.SMTP_FROM ?? 'Tappet <no-reply@tappet.test>',
     },
-    stripe: { secretKey: raw.STRIPE_SECRET_KEY ?? null, webhookSecret: raw.STRIPE_WEBHOOK_SECRET ?? null },
+    stripe: { secretKey: raw.STRIPE_SECRET_KEY ?? null, webhookSecret: raw.STRIPE_WEBHOOK_SECRET ?? null, apiUrl: raw.STRIPE_API_URL ?? null },
     mailSinkHttpPort: raw.MAIL_SINK_HTTP_PORT ?? 1080,
     session: {
       idleTimeoutMs: (raw.SESSION_IDLE_TIMEOUT_MINUTES ?? 120) * 60_000,

@@ -11,6 +11,17 @@ import { PartSearch1764900000000 } from './migrations/1764900000000-part-search'
 import { InvitationEntity } from '../modules/staff/staff.entity';
 import { ApiKeyEntity } from '../modules/api-keys/api-keys.entity';
 import { ShopSettingsEntity } from '../modules/settings/settings.entity';
+import { billingEntities } from '../modules/billing/billing.entity';
+import { Billing1765200000000 } from './migrations/1765200000000-billing';
+import { Vehicles1765100000000 } from './migrations/1765100000000-vehicles';
+import { CustomerEntity } from '../modules/customers/customers.entity';
+import { vehicleEntities } from '../modules/vehicles/vehicles.entity';
+import { Stock1765000000000 } from './migrations/1765000000000-stock';
+import { stockEntities } from '../modules/stock/stock.entity';
+import { Purchasing1765400000000 } from './migrations/1765400000000-purchasing';
+import { purchasingEntities } from '../modules/purchasing/purchasing.entity';
+import { Jobs1765500000000 } from './migrations/1765500000000-jobs';
+import { jobEntities } from '../modules/jobs/jobs.entity';
 
 /** The few better-sqlite3 methods we call (the package ships no type declarations). */
 export interface SqliteHandle {
@@ -20,10 +31,10 @@ export interface SqliteHandle {
 }
 
 /** Every entity schema the app knows. */
-export const entities = [UserEntity, ShopEntity, MembershipEntity, SessionEntity, PasswordResetTokenEntity, AuditEventEntity, ...catalogueEntities, InvitationEntity, ApiKeyEntity, ShopSettingsEntity];
+export const entities = [UserEntity, ShopEntity, MembershipEntity, SessionEntity, PasswordResetTokenEntity, AuditEventEntity, ...catalogueEntities, InvitationEntity, ApiKeyEntity, ShopSettingsEntity, CustomerEntity, ...vehicleEntities, ...billingEntities, ...stockEntities, ...purchasingEntities, ...jobEntities];
 
 /** Committed migrations, in order. Passed as classes: globs do not survive bundling or tsx. */
-export const migrations = [InitialSchema1764633600000, Catalogue1764720000000, ShopAdministration1764806400000, PartSearch1764900000000];
+export const migrations = [InitialSchema1764633600000, Catalogue1764720000000, ShopAdministration1764806400000, PartSearch1764900000000, Stock1765000000000, Vehicles1765100000000, Billing1765200000000, Purchasing1765400000000, Jobs1765500000000];
 
 /**
  * Pragmas set on every connection. Set here rather than through `enableWAL` so that

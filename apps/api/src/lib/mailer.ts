@@ -6,6 +6,8 @@ export interface MailMessage {
   subject: string;
   text: string;
   html?: string;
+  /** Files sent with the message (e.g. a purchase order PDF); nodemailer's attachment shape. */
+  attachments?: Array<{ filename: string; content: Buffer; contentType: string }>;
 }
 
 /** Sends e-mail. Never call it inside a db.write(): the write lock must not wait on the network. */

@@ -39,7 +39,7 @@ export function csrfProtection(env: Env): RequestHandler {
 }
 
 /** Routes (relative to /api) that accept a multipart file upload. */
-const multipartRoutes = [/^\/shops\/[^/]+\/imports$/];
+const multipartRoutes = [/^\/shops\/[^/]+\/imports$/, /^\/shops\/[^/]+\/purchasing\/listings\/import$/, /^\/shops\/[^/]+\/vehicles\/[^/]+\/files$/, /^\/shops\/[^/]+\/jobs\/[^/]+\/files$/];
 
 function requireJsonBody(req: Request, next: NextFunction): void {
   const hasBody = (req.headers['content-length'] !== undefined && req.headers['content-length'] !== '0') || req.headers['transfer-encoding'] !== undefined;

@@ -6,6 +6,8 @@ import type { Database } from '../db/write-lock';
 import { HttpError, forbidden, notFound } from '../lib/http-error';
 import { MembershipEntity, ShopEntity, readOnlyBillingStates } from '../modules/shops/shops.entity';
 import { authOf } from './authenticate';
+import { refuseWritesWhenReadOnly } from './read-only-shop';
+import { supportGrantOf } from '../modules/platform/support-access.service';
 
 const noSuchShop = () => notFound('No such shop.');
 
@@ -30,11 +32,26 @@ export function tenantContext(db: Database): RequestHandler {
         { userId: key.userId ?? `api-key:${key.id}`, isPlatformAdmin: false, apiKeyId: key.id },
         { shopId, role: key.role, spendingLimitMinor: null, writable: !readOnlyBillingStates.includes(shop.billingState) },
       );
+      refuseWritesWhenReadOnly(req, shop);
       return next();
     }
     const auth = authOf(req);
     const membership = await shopScoped(db.reader, MembershipEntity, shopId).findOne({ userId: auth.user.id, isActive: true });
-    if (!membership) throw noSuchShop();
+    if (!membership) {
+      // A platform admin sees a shop only under its owner's support grant (noted and audited by
+      // the support-access preflight); acting as owner, minus staff, keys, billing and grants.
+      const grant = auth.user.isPlatformAdmin ? supportGrantOf(req) : null;
+      const granted = grant && grant.shopId === shopId ? await db.reader.findOne(ShopEntity, { where: { id: shopId } }) : null;
+      if (!grant || !granted) throw noSuchShop();
+      req.shop = granted;
+      req.membership = { id: `support:${grant.id}`, shopId, userId: auth.user.id, role: 'owner', spendingLimitMinor: null, isActive: true, createdAt: grant.createdAt };
+      req.ability = defineAbilityFor(
+        { userId: auth.user.id, isPlatformAdmin: true, apiKeyId: null },
+        { shopId, role: 'owner', spendingLimitMinor: null, writable: !readOnlyBillingStates.includes(granted.billingState), viaSupportGrant: true },
+      );
+      refuseWritesWhenReadOnly(req, granted);
+      return next();
+    }
     const shop = await db.reader.findOne(ShopEntity, { where: { id: shopId } });
     if (!shop) throw noSuchShop();
     req.shop = shop;
@@ -43,6 +60,7 @@ export function tenantContext(db: Database): RequestHandler {
       { userId: auth.user.id, isPlatformAdmin: auth.user.isPlatformAdmin, apiKeyId: null },
       { shopId, role: membership.role, spendingLimitMinor: membership.spendingLimitMinor, writable: !readOnlyBillingStates.includes(shop.billingState) },
     );
+    refuseWritesWhenReadOnly(req, shop);
     next();
   };
 }

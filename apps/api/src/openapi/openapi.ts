@@ -16,11 +16,19 @@ import {
 } from '@tappet/contracts';
 import { catalogueRouteDocs } from '../modules/catalogue/catalogue.openapi';
 import { lookupRouteDocs } from '../modules/lookup/lookup.openapi';
+import { stockRouteDocs } from '../modules/stock/stock.openapi';
 import { staffRouteDocs } from '../modules/staff/staff.openapi';
 import { apiKeyRouteDocs } from '../modules/api-keys/api-keys.openapi';
 import { auditRouteDocs } from '../modules/audit/audit.openapi';
 import { settingsRouteDocs } from '../modules/settings/settings.openapi';
+import { labelRouteDocs } from '../modules/labels/labels.openapi';
 import { shopExportRouteDocs } from '../modules/shop-export/shop-export.openapi';
+import { purchasingRouteDocs } from '../modules/purchasing/purchasing.openapi';
+import { customerRouteDocs } from '../modules/customers/customers.openapi';
+import { vehicleRouteDocs } from '../modules/vehicles/vehicles.openapi';
+import { jobRouteDocs } from '../modules/jobs/jobs.openapi';
+import { billingRouteDocs } from '../modules/billing/billing.openapi';
+import { platformRouteDocs } from '../modules/platform/platform.openapi';
 import { createTestShopRequestSchema, createTestShopResponseSchema } from '../modules/test-support/test-support.router';
 
 type Method = RouteConfig['method'];
@@ -39,9 +47,11 @@ export interface RouteDoc {
   /** Body media type when not JSON (file uploads). */
   bodyType?: 'multipart/form-data';
   /** Response media type when not JSON (CSV exports). */
-  responseType?: 'text/csv' | 'application/zip';
+  responseType?: 'text/csv' | 'application/zip' | 'application/pdf' | 'image/jpeg' | '*/*';
   /** Query string schema. */
   query?: z.ZodObject;
+  /** False for a write that takes no X-CSRF header (Stripe's webhook). */
+  csrf?: false;
   /** Error statuses worth listing beyond the ones every route has. */
   errors?: Record<number, string>;
 }
@@ -118,11 +128,19 @@ export function apiRoutes(options: { testSupport: boolean }): RouteDoc[] {
     },
     ...catalogueRouteDocs,
     ...lookupRouteDocs,
+    ...stockRouteDocs,
     ...staffRouteDocs,
     ...apiKeyRouteDocs,
     ...auditRouteDocs,
     ...settingsRouteDocs,
+    ...labelRouteDocs,
     ...shopExportRouteDocs,
+    ...purchasingRouteDocs,
+    ...customerRouteDocs,
+    ...vehicleRouteDocs,
+    ...jobRouteDocs,
+    ...billingRouteDocs,
+    ...platformRouteDocs,
   ];
   if (options.testSupport) {
     routes.push({
@@ -175,7 +193,7 @@ export function buildOpenApiDocument(options: { testSupport: boolean; serverUrl:
       security: route.auth ? (route.path.startsWith('/api/shops/{shopId}') ? [{ sessionCookie: [] }, { apiKey: [] }] : [{ sessionCookie: [] }]) : undefined,
       request: {
         params: route.params,
-        headers: changesData ? csrfHeader : undefined,
+        headers: changesData && route.csrf !== false ? csrfHeader : undefined,
         query: route.query,
         body: route.body ? { required: true, content: route.bodyType ? { [route.bodyType]: { schema: route.body } } : json(route.body) } : undefined,
       },

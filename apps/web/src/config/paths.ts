@@ -20,6 +20,8 @@ export const paths = {
     staff: { path: '/shops/:shopId/staff', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/staff` },
     auditLog: { path: '/shops/:shopId/audit-log', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/audit-log` },
     apiKeys: { path: '/shops/:shopId/api-keys', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/api-keys` },
+    billing: { path: '/shops/:shopId/billing', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/billing` },
+    supportAccess: { path: '/shops/:shopId/support-access', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/support-access` },
     lookup: { path: '/shops/:shopId/lookup', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/lookup` },
     catalogue: {
       path: '/shops/:shopId/catalogue',
@@ -31,8 +33,49 @@ export const paths = {
       path: '/shops/:shopId/catalogue/:partId',
       getHref: (shopId: string, partId: string) => `/shops/${encodeURIComponent(shopId)}/catalogue/${encodeURIComponent(partId)}`,
     },
+    vehicles: {
+      path: '/shops/:shopId/vehicles',
+      /** `search` is the list's filter state as a query string (without "?"). */
+      getHref: (shopId: string, search?: string) => `/shops/${encodeURIComponent(shopId)}/vehicles${search ? `?${search}` : ''}`,
+    },
+    vehicle: {
+      path: '/shops/:shopId/vehicles/:vehicleId',
+      getHref: (shopId: string, vehicleId: string) => `/shops/${encodeURIComponent(shopId)}/vehicles/${encodeURIComponent(vehicleId)}`,
+    },
+    stock: {
+      path: '/shops/:shopId/stock',
+      /** `search` is the list's filter state as a query string (without "?"). */
+      getHref: (shopId: string, search?: string) => `/shops/${encodeURIComponent(shopId)}/stock${search ? `?${search}` : ''}`,
+    },
+    stockMovements: {
+      path: '/shops/:shopId/stock/movements',
+      getHref: (shopId: string, search?: string) => `/shops/${encodeURIComponent(shopId)}/stock/movements${search ? `?${search}` : ''}`,
+    },
+    stockHolds: { path: '/shops/:shopId/stock/holds', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/stock/holds` },
+    stockBins: { path: '/shops/:shopId/stock/bins', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/stock/bins` },
+    stockValue: { path: '/shops/:shopId/stock/value', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/stock/value` },
+    jobs: {
+      path: '/shops/:shopId/jobs',
+      /** `search`: `view=mine` for the caller's own jobs, `closed=true` to include done and cancelled. */
+      getHref: (shopId: string, search?: string) => `/shops/${encodeURIComponent(shopId)}/jobs${search ? `?${search}` : ''}`,
+    },
+    job: { path: '/shops/:shopId/jobs/:jobId', getHref: (shopId: string, jobId: string) => `/shops/${encodeURIComponent(shopId)}/jobs/${encodeURIComponent(jobId)}` },
+    checklistTemplates: { path: '/shops/:shopId/checklist-templates', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/checklist-templates` },
+    purchasingReorder: { path: '/shops/:shopId/purchasing/reorder', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/purchasing/reorder` },
+    purchasingOrders: { path: '/shops/:shopId/purchasing/orders', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/purchasing/orders` },
+    purchasingOrder: {
+      path: '/shops/:shopId/purchasing/orders/:orderId',
+      getHref: (shopId: string, orderId: string) => `/shops/${encodeURIComponent(shopId)}/purchasing/orders/${encodeURIComponent(orderId)}`,
+    },
+    purchasingSuppliers: { path: '/shops/:shopId/purchasing/suppliers', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/purchasing/suppliers` },
+    purchasingSupplier: {
+      path: '/shops/:shopId/purchasing/suppliers/:supplierId',
+      getHref: (shopId: string, supplierId: string) => `/shops/${encodeURIComponent(shopId)}/purchasing/suppliers/${encodeURIComponent(supplierId)}`,
+    },
+    purchasingReturns: { path: '/shops/:shopId/purchasing/returns', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/purchasing/returns` },
   },
   platform: { path: '/platform', getHref: () => '/platform' },
+  platformPlans: { path: '/platform/plans', getHref: () => '/platform/plans' },
   noShop: { path: '/welcome', getHref: () => '/welcome' },
   apiDocs: { path: '/api-docs', getHref: () => '/api-docs' },
 } as const;

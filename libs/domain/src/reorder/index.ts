@@ -11,3 +11,4 @@ export {
   type LeadTimeDemandModel,
   type ServiceTarget,
 } from './reorder-point';
+export { decideReorder, leadTimeDemandModel, substituteSupply, type ReorderDecision, type ReorderInput, type ReorderMethod, type SubstituteStock } from './suggest';

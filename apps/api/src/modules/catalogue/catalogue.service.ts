@@ -20,6 +20,7 @@ import {
   type ResolveResponse,
 } from '@tappet/contracts';
 import type { Database } from '../../db/write-lock';
+import { assertCatalogueRoom } from '../billing/plan-limits';
 import { HttpError, badRequest, notFound } from '../../lib/http-error';
 import type { Clock } from '../../lib/clock';
 import { diffChanges, recordAudit, type AuditActor } from '../audit/audit.service';
@@ -248,6 +249,7 @@ export function createCatalogueService(deps: { db: Database; clock: Clock }) {
       };
       await db.write(async (manager) => {
         if (await manager.exists(PartEntity, { where: { shopId, key } })) throw conflict(`The shop already has a part numbered like ${input.number}.`);
+        await assertCatalogueRoom(manager, shopId, 1);
         await manager.insert(PartEntity, row);
         await replaceSupplierNumbers(manager, shopId, row.id, input.supplierNumbers);
         await attachDanglingLinks(manager, shopId);

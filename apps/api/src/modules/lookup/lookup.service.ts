@@ -1,6 +1,6 @@
 import Fuse from 'fuse.js';
 import { lineageReason, matchDescription, matchNumber, mergeHits, MIN_SUBSTRING_QUERY, normalisePartNumber, typosWithin, type LineageGraph, type SearchHit } from '@tappet/domain';
-import type { PartSearchQueryParsed, PartSearchResponse } from '@tappet/contracts';
+import type { PartSearchQueryParsed, PartSearchResponse, StockSummary } from '@tappet/contracts';
 import type { PartSearchFilters, PartSearchIndex, SearchablePart } from './part-search-index';
 
 /** How many typo candidates the index hands over for exact distance and re-ranking. */
@@ -30,7 +30,12 @@ export function nearEnough(key: string, keys: string): boolean {
  * description words), lineage relatives of exact hits from the shop's lineage graph, then the
  * forgiving matchers of libs/domain decide and rank; fuse.js only breaks ties among candidates.
  */
-export function createLookupService(deps: { index: PartSearchIndex; graphOf: (shopId: string) => Promise<LineageGraph> }) {
+export function createLookupService(deps: {
+  index: PartSearchIndex;
+  graphOf: (shopId: string) => Promise<LineageGraph>;
+  /** Stock of each part (the stock module's freeStockByPart); results carry it when given. */
+  stockOf?: (shopId: string, partIds: string[]) => Promise<Map<string, StockSummary>>;
+}) {
   const { index, graphOf } = deps;
 
   /** Current parts and fill options of each exact hit, as lineage hits naming the number typed. */
@@ -99,9 +104,14 @@ export function createLookupService(deps: { index: PartSearchIndex; graphOf: (sh
         }
       }
 
-      const results = mergeHits(hits, query.limit).map((hit) => {
+      const merged = mergeHits(hits, query.limit);
+      // Every result with its stock, lineage relatives too: "none of this number, but 3 of its replacement in B-04".
+      const stock = deps.stockOf ? await deps.stockOf(shopId, merged.map((h) => h.partId)) : null;
+      const results = merged.map((hit) => {
         const part = byId.get(hit.partId)!;
-        return { id: part.id, number: part.number, description: part.description, origin: part.origin, category: part.category, status: part.status, match: hit.match, reason: hit.reason };
+        const row = { id: part.id, number: part.number, description: part.description, origin: part.origin, category: part.category, status: part.status, match: hit.match, reason: hit.reason };
+        const partStock = stock?.get(part.id);
+        return partStock ? { ...row, stock: partStock } : row;
       });
       return { results };
     },

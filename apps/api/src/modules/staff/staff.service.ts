@@ -17,6 +17,7 @@ import { MembershipEntity, ShopEntity, type Membership, type Shop } from '../sho
 import { insertMembership } from '../shops/shops.service';
 import { UserEntity, type User } from '../users/users.entity';
 import { InvitationEntity, type Invitation } from './staff.entity';
+import { assertSeatAvailable } from '../billing/plan-limits';
 
 /** How long an invitation link works. */
 export const invitationTtlMs = 7 * 24 * 60 * 60_000;
@@ -174,6 +175,8 @@ export function createStaffService(deps: StaffServiceDeps) {
         }
         const open = await shopScoped(manager, InvitationEntity, shop.id).findOne({ email: input.email, acceptedAt: IsNull(), withdrawnAt: IsNull() });
         if (open) throw conflict('This address already has an open invitation: resend or withdraw it.');
+        // The plan's seats count members and open invitations alike.
+        await assertSeatAvailable(manager, shop.id, now);
         await manager.insert(InvitationEntity, invitation);
         await recordAudit(manager, {
           shopId: shop.id,
@@ -328,6 +331,7 @@ export function createStaffService(deps: StaffServiceDeps) {
       return db.write(async (manager) => {
         const membership = await memberOr404(manager, shopId, membershipId);
         if (membership.isActive) return memberView(manager, membership);
+        await assertSeatAvailable(manager, shopId, clock.now());
         await manager.update(MembershipEntity, { id: membership.id }, { isActive: true });
         await recordAudit(manager, { shopId, actor, action: 'membership.reactivated', entity: 'membership', entityId: membership.id, changes: { isActive: { before: false, after: true } }, at: clock.now() });
         return memberView(manager, { ...membership, isActive: true });

@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { normalisePartNumber } from '@tappet/domain';
 import { interchanges, linkKinds, partInputSchema, printedNumberSchema, type ImportResult } from '@tappet/contracts';
 import type { Database } from '../../../db/write-lock';
+import { assertCatalogueRoom } from '../../billing/plan-limits';
 import type { Clock } from '../../../lib/clock';
 import { HttpError } from '../../../lib/http-error';
 import { recordAudit, type AuditActor } from '../../audit/audit.service';
@@ -410,6 +411,8 @@ export function createImportService(deps: { db: Database; clock: Clock; catalogu
       if (input.mode === 'commit' && c.errors.length === 0 && c.added + c.changed > 0) {
         try {
           await db.write(async (manager) => {
+            // Parts past the plan's catalogue size refuse the whole file, like any other problem.
+            if (input.kind === 'parts') await assertCatalogueRoom(manager, shopId, c.added);
             await plan(manager);
             await recordAudit(manager, {
               shopId,

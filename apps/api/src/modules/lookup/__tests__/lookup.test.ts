@@ -133,7 +133,7 @@ describe('ranking and answer', () => {
     const full = await search('71-3456');
     expect(full.find((r) => r.number === 'RP-3456')).toMatchObject({ match: 'lineage', reason: 'can stand in for 71-3456 (one way)' });
     expect(full.find((r) => r.number === '71-3465')).toMatchObject({ match: 'fuzzy' });
-    expect(full[0]).toEqual({ id: ids.get('71-3456'), number: '71-3456', description: 'Clutch cable, inner', origin: 'genuine', category: 'Controls', status: 'available', match: 'exact', reason: 'exact number' });
+    expect(full[0]).toEqual({ id: ids.get('71-3456'), number: '71-3456', description: 'Clutch cable, inner', origin: 'genuine', category: 'Controls', status: 'available', match: 'exact', reason: 'exact number', stock: { onHand: 0, held: 0, free: 0, lines: [] } });
   });
 
   it('filters by fitment (marque, model, year), category and origin', async () => {

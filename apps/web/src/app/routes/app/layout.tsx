@@ -9,8 +9,13 @@ import { IconCatalogue } from '../../../features/catalogue/components/catalogue-
 import { IconApiKey } from '../../../features/api-keys/components/api-key-icon';
 import { IconAuditLog } from '../../../features/audit/components/audit-icon';
 import { IconLookup } from '../../../features/lookup/components/lookup-icon';
+import { IconStock } from '../../../features/stock/components/stock-icon';
+import { IconPurchasing } from '../../../features/purchasing/components/purchasing-icon';
+import { IconVehicles } from '../../../features/vehicles/components/vehicle-icon';
+import { IconJobs } from '../../../features/jobs/components/jobs-icon';
 import { ShopSwitcher } from '../../../features/shops/components/shop-switcher';
 import { IconStaff } from '../../../features/staff/components/staff-icon';
+import { IconBilling, IconSupport } from '../../../features/billing/components/billing-icons';
 import { abilityFor, canOn, ShopAbilityProvider } from '../../../lib/ability';
 import { errorMessage } from '../../../lib/api-client';
 import { defaultShopId, meQueryOptions, useMe, type Me } from '../../../lib/auth';
@@ -37,15 +42,28 @@ function navFor(me: Me, shopId: string | null): NavItem[] {
     if (canOn(abilityFor(me, shopId), 'read', 'Part', { shopId })) {
       items.push({ to: paths.shop.catalogue.getHref(shopId), label: 'Catalogue', icon: <IconCatalogue /> });
     }
+    if (canOn(abilityFor(me, shopId), 'read', 'Stock', { shopId })) items.push({ to: paths.shop.stock.getHref(shopId), label: 'Stock', icon: <IconStock /> });
+    if (canOn(abilityFor(me, shopId), 'read', 'PurchaseOrder', { shopId })) items.push({ to: paths.shop.purchasingReorder.getHref(shopId), label: 'Purchasing', icon: <IconPurchasing /> });
+    if (canOn(abilityFor(me, shopId), 'read', 'Vehicle', { shopId })) items.push({ to: paths.shop.vehicles.getHref(shopId), label: 'Vehicles', icon: <IconVehicles /> });
+    if (canOn(abilityFor(me, shopId), 'read', 'Job', { shopId })) {
+      // A mechanic lands on their own jobs; everyone else on the board.
+      const mechanic = me.memberships.find((m) => m.shopId === shopId)?.role === 'mechanic';
+      items.push({ to: paths.shop.jobs.getHref(shopId, mechanic ? 'view=mine' : undefined), label: 'Jobs', icon: <IconJobs /> });
+    }
     if (canOn(abilityFor(me, shopId), 'update', 'Shop', { shopId })) {
       items.push({ to: paths.shop.settings.getHref(shopId), label: 'Shop', icon: <IconShop /> });
     }
     if (canOn(abilityFor(me, shopId), 'read', 'Staff', { shopId })) items.push({ to: paths.shop.staff.getHref(shopId), label: 'Staff', icon: <IconStaff /> });
     if (canOn(abilityFor(me, shopId), 'read', 'AuditLog', { shopId })) items.push({ to: paths.shop.auditLog.getHref(shopId), label: 'Audit log', icon: <IconAuditLog /> });
     if (canOn(abilityFor(me, shopId), 'read', 'ApiKey', { shopId })) items.push({ to: paths.shop.apiKeys.getHref(shopId), label: 'API keys', icon: <IconApiKey /> });
+    if (canOn(abilityFor(me, shopId), 'read', 'Billing', { shopId })) items.push({ to: paths.shop.billing.getHref(shopId), label: 'Billing', icon: <IconBilling /> });
+    if (canOn(abilityFor(me, shopId), 'read', 'SupportAccess', { shopId })) {
+      items.push({ to: paths.shop.supportAccess.getHref(shopId), label: 'Support access', icon: <IconSupport /> });
+    }
     if (me.user.isPlatformAdmin) items.push({ to: paths.platform.getHref(), label: 'Platform', icon: <IconPlatform /> });
   } else if (me.user.isPlatformAdmin) {
-    items.push({ to: paths.platform.getHref(), label: 'Home', icon: <IconHome /> });
+    items.push({ to: paths.platform.getHref(), label: 'Home', icon: <IconHome />, end: true });
+    items.push({ to: paths.platformPlans.getHref(), label: 'Plans', icon: <IconBilling /> });
   } else {
     items.push({ to: paths.noShop.getHref(), label: 'Home', icon: <IconHome /> });
   }

@@ -1,10 +1,18 @@
+import type { QueryClient } from '@tanstack/react-query';
 import { PageHeader } from '../../../components/layouts/page-header';
 import { NotFoundContent } from '../../../components/errors/not-found';
-import { PlatformWelcome } from '../../../features/home/components/platform-welcome';
-import { useMe } from '../../../lib/auth';
+import { platformShopsQueryOptions } from '../../../features/platform/api/platform-api';
+import { PlatformShopsScreen } from '../../../features/platform/components/platform-shops-screen';
+import { meQueryOptions, useMe } from '../../../lib/auth';
 import { useDocumentTitle } from '../../../lib/use-document-title';
 
-/** Home of platform administrators. Anyone else gets "not found", as from the API. */
+export const clientLoader = (queryClient: QueryClient) => async () => {
+  const me = await queryClient.ensureQueryData(meQueryOptions());
+  if (me?.user.isPlatformAdmin) void queryClient.prefetchQuery(platformShopsQueryOptions({}));
+  return null;
+};
+
+/** Home of platform administrators: the shops console. Anyone else gets "not found", as from the API. */
 export default function PlatformRoute() {
   const me = useMe();
   useDocumentTitle('Platform');
@@ -12,8 +20,8 @@ export default function PlatformRoute() {
   if (!me.user.isPlatformAdmin) return <NotFoundContent />;
   return (
     <>
-      <PageHeader eyebrow="Home" title="Platform" />
-      <PlatformWelcome firstName={me.user.name.split(/\s+/)[0] || me.user.name} hasShops={me.memberships.length > 0} />
+      <PageHeader eyebrow="Shops" title="Platform" description="Every shop on Tappet: plan, subscription state and usage. Onboard new shops and suspend or reactivate by hand." />
+      <PlatformShopsScreen />
     </>
   );
 }

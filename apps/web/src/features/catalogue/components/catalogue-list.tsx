@@ -20,14 +20,52 @@ export interface CatalogueListProps {
   onClear: () => void;
   /** What to offer when the catalogue is empty (add / import), for those who may. */
   emptyActions?: ReactNode;
+  /** With this, each row gets a checkbox (kept across pages by the caller), e.g. to print labels. */
+  selection?: {
+    isSelected: (id: string) => boolean;
+    onChange: (rows: Row[], selected: boolean) => void;
+  };
 }
 
 /** The catalogue as a table, filtered and paged by the API. */
-export function CatalogueList({ shopId, params, filtered, onChange, onClear, emptyActions }: CatalogueListProps) {
+export function CatalogueList({ shopId, params, filtered, onChange, onClear, emptyActions, selection }: CatalogueListProps) {
   const parts = useParts(shopId, params);
+  const pageRows = parts.data?.items;
 
   const columns = useMemo(
     () => [
+      ...(selection
+        ? [
+            column.display({
+              id: 'select',
+              header: () => {
+                const rows = pageRows ?? [];
+                const chosen = rows.filter((r) => selection.isSelected(r.id)).length;
+                return (
+                  <input
+                    type="checkbox"
+                    aria-label="Choose every part on this page"
+                    className="h-5 w-5 accent-accent"
+                    checked={rows.length > 0 && chosen === rows.length}
+                    ref={(el) => {
+                      if (el) el.indeterminate = chosen > 0 && chosen < rows.length;
+                    }}
+                    onChange={(event) => selection.onChange(rows, event.target.checked)}
+                  />
+                );
+              },
+              cell: (info) => (
+                <input
+                  type="checkbox"
+                  aria-label={`Choose ${info.row.original.number}`}
+                  className="h-5 w-5 accent-accent"
+                  checked={selection.isSelected(info.row.original.id)}
+                  onChange={(event) => selection.onChange([info.row.original], event.target.checked)}
+                />
+              ),
+            }),
+          ]
+        : []),
       column.accessor('number', {
         header: 'Number',
         enableSorting: false,
@@ -43,7 +81,7 @@ export function CatalogueList({ shopId, params, filtered, onChange, onClear, emp
       column.accessor('status', { header: 'Status', enableSorting: false, cell: (info) => <PartStatusPill status={info.getValue()} /> }),
       column.accessor('problemCount', { header: 'Problems', enableSorting: false, cell: (info) => <ProblemCount count={info.getValue()} /> }),
     ],
-    [shopId],
+    [shopId, selection, pageRows],
   );
 
   const data = parts.data;

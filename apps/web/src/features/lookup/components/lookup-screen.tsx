@@ -1,6 +1,6 @@
 import type { LookupMatch, PartOrigin, PartSearchResult } from '@tappet/contracts';
 import { useQueryClient } from '@tanstack/react-query';
-import { Button, EmptyState, ErrorState, LoadingState, PartNumber, Spinner, StatusPill, cn } from '@tappet/ui';
+import { Button, CameraScanButton, EmptyState, ErrorState, LoadingState, PartNumber, Spinner, StatusPill, cn } from '@tappet/ui';
 import { useEffect, useId, useRef, useState, type KeyboardEvent } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { paths } from '../../../config/paths';
@@ -11,6 +11,7 @@ import { useRecentLookups, type RecentLookup } from '../hooks/use-recent-lookups
 import { useScannerInput } from '../hooks/use-scanner-input';
 import { useLookupFilters } from '../hooks/use-lookup-filters';
 import { LookupFiltersPanel } from './lookup-filters';
+import { LookupStock } from './lookup-stock';
 
 /** Typing pauses this long before a lookup is sent. */
 export const LOOKUP_DEBOUNCE_MS = 150;
@@ -64,10 +65,13 @@ export function LookupScreen({ shopId, userId }: { shopId: string; userId: strin
     navigate(paths.shop.part.getHref(shopId, result.id));
   };
 
-  /** Enter: open the highlighted part; if the answer on screen is not for what is typed yet, ask now. */
-  const submit = async () => {
-    const typed = text.trim();
-    const scanned = scanner.wasScanned();
+  /**
+   * Enter: open the highlighted part; if the answer on screen is not for what is typed yet, ask now.
+   * A camera scan passes its code, handled like a keyboard-wedge scan.
+   */
+  const submit = async (camera?: { code: string }) => {
+    const typed = camera ? camera.code.trim() : text.trim();
+    const scanned = camera ? true : scanner.wasScanned();
     scanner.reset();
     if (!typed) return;
     let answer = results;
@@ -116,32 +120,46 @@ export function LookupScreen({ shopId, userId }: { shopId: string; userId: strin
         <label htmlFor={`${listId}-field`} className="text-lg font-bold">
           Look up a part
         </label>
-        <div className="relative">
-          <input
-            ref={inputRef}
-            id={`${listId}-field`}
-            type="search"
-            role="combobox"
-            aria-expanded={expanded}
-            aria-controls={`${listId}-results`}
-            aria-autocomplete="list"
-            aria-activedescendant={expanded ? optionId(activeIndex) : undefined}
-            aria-describedby={`${listId}-hint`}
-            autoComplete="off"
-            autoCapitalize="characters"
-            spellCheck={false}
-            value={text}
-            onChange={(event) => setText(event.target.value)}
-            onKeyDown={onKeyDown}
-            placeholder="Number, supplier number or words"
-            className="min-h-14 w-full rounded-lg border-2 border-line-strong bg-surface px-4 py-3 font-mono text-xl text-ink placeholder:font-sans placeholder:text-ink-muted focus:border-accent focus:outline-none focus-visible:ring-2 focus-visible:ring-accent"
+        <div className="flex items-stretch gap-2">
+          <div className="relative min-w-0 flex-1">
+            <input
+              ref={inputRef}
+              id={`${listId}-field`}
+              type="search"
+              role="combobox"
+              aria-expanded={expanded}
+              aria-controls={`${listId}-results`}
+              aria-autocomplete="list"
+              aria-activedescendant={expanded ? optionId(activeIndex) : undefined}
+              aria-describedby={`${listId}-hint`}
+              autoComplete="off"
+              autoCapitalize="characters"
+              spellCheck={false}
+              value={text}
+              onChange={(event) => setText(event.target.value)}
+              onKeyDown={onKeyDown}
+              placeholder="Number, supplier number or words"
+              className="min-h-14 w-full rounded-lg border-2 border-line-strong bg-surface px-4 py-3 font-mono text-xl text-ink placeholder:font-sans placeholder:text-ink-muted focus:border-accent focus:outline-none focus-visible:ring-2 focus-visible:ring-accent"
+            />
+            {(search.isFetching || opening) && (
+              <Spinner size={20} className="absolute top-1/2 right-4 -translate-y-1/2 text-accent" />
+            )}
+          </div>
+          <CameraScanButton
+            label="Scan"
+            aria-label="Scan with the camera"
+            dialogTitle="Scan a part number"
+            typeLabel="Or type the number"
+            className="min-h-14"
+            onDetected={(code) => {
+              setText(code);
+              inputRef.current?.focus();
+              void submit({ code });
+            }}
           />
-          {(search.isFetching || opening) && (
-            <Spinner size={20} className="absolute top-1/2 right-4 -translate-y-1/2 text-accent" />
-          )}
         </div>
         <p id={`${listId}-hint`} className="text-ink-muted">
-          Typos, missing prefixes and separators are forgiven. Arrow keys choose, Enter opens, “/” comes back here.
+          Typos, missing prefixes and separators are forgiven. Arrow keys choose, Enter opens, “/” comes back here. Scan uses the camera of a phone or tablet.
         </p>
         <LookupFiltersPanel shopId={shopId} filters={filters} count={filterCount} onChange={setFilters} />
       </div>
@@ -182,6 +200,7 @@ export function LookupScreen({ shopId, userId }: { shopId: string; userId: strin
                       <span className="block text-sm text-ink-muted">
                         <span className="font-bold">{matchWords[result.match]}:</span> {result.reason}
                       </span>
+                      <LookupStock stock={result.stock} />
                     </span>
                     <span className="col-span-2 flex flex-wrap items-center gap-2 sm:col-span-1 sm:justify-end">
                       <span className="text-sm">{originWords[result.origin]}</span>

@@ -8,8 +8,8 @@ import { useUpdateSettings } from '../api/update-settings';
 const distanceLabels: Record<(typeof distanceUnits)[number], string> = { mi: 'Miles', km: 'Kilometres' };
 const pressureLabels: Record<(typeof pressureUnits)[number], string> = { psi: 'psi', kPa: 'kPa', bar: 'bar' };
 const labelSheetLabels: Record<(typeof labelSheetFormats)[number], string> = {
-  'a4-3x8': 'A4 sheet, 3 × 8 labels',
-  'letter-3x10': 'US Letter sheet, 3 × 10 labels',
+  'a4-3x8': 'A4 sheet, 3 × 8 labels (70 × 37 mm)',
+  'letter-3x10': 'US Letter sheet, 3 × 10 labels (66.7 × 25.4 mm)',
   'roll-62x29': 'Label roll, 62 × 29 mm',
 };
 
@@ -144,7 +144,7 @@ export function SettingsForm({ shopId, settings }: { shopId: string; settings: S
         <TextField label="Holding cost (% of stock value a year)" name="holdingCostRatePercent" inputMode="decimal" defaultValue={String(settings.holdingCostRatePercent)} hint="Space, insurance and money tied up, e.g. 25." error={e.holdingCostRatePercent} />
       </Group>
       <Group title="Labels" description="The sheets or roll the bin and part labels are printed on.">
-        <Select label="Label sheet" name="labelSheetFormat" defaultValue={settings.labelSheetFormat} options={labelSheetFormats.map((f) => ({ value: f, label: labelSheetLabels[f] }))} error={e.labelSheetFormat} />
+        <Select label="Label sheet" name="labelSheetFormat" defaultValue={settings.labelSheetFormat} options={labelSheetFormats.map((f) => ({ value: f, label: labelSheetLabels[f] }))} hint="Everyone who prints labels starts with this format; one print may choose another." error={e.labelSheetFormat} />
       </Group>
       <div className="sticky bottom-0 -mx-1 flex flex-wrap items-center gap-3 border-t-2 border-line bg-ground px-1 py-3">
         <Button type="submit" loading={update.isPending}>

@@ -4,6 +4,7 @@ import { useEffect } from 'react';
 import { data, isRouteErrorResponse, Outlet, useParams, useRouteError, type LoaderFunctionArgs } from 'react-router-dom';
 import { NotFoundContent } from '../../../../components/errors/not-found';
 import { useSetActiveShop } from '../../../../features/shops/api/set-active-shop';
+import { BillingNotice } from '../../../../features/billing/components/billing-notice';
 import { meQueryOptions, useMe } from '../../../../lib/auth';
 import { clearShopCaches } from '../../../../lib/query-client';
 
@@ -32,7 +33,12 @@ export default function ShopLayoutRoute() {
     if (activeShopId !== undefined && activeShopId !== shopId) mutate(shopId);
   }, [activeShopId, shopId, mutate]);
 
-  return <Outlet />;
+  return (
+    <>
+      <BillingNotice shopId={shopId} />
+      <Outlet />
+    </>
+  );
 }
 
 export function ErrorBoundary() {

@@ -1,6 +1,6 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { Button, buttonClasses } from '@tappet/ui';
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { PageHeader } from '../../../../../components/layouts/page-header';
 import { env } from '../../../../../config/env';
@@ -11,6 +11,7 @@ import { CatalogueList } from '../../../../../features/catalogue/components/cata
 import { PartFormDialog } from '../../../../../features/catalogue/components/part-form-dialog';
 import { ProblemsBanner } from '../../../../../features/catalogue/components/problems-banner';
 import { parsePartListParams, usePartListParams } from '../../../../../features/catalogue/hooks/use-part-list-params';
+import { PrintLabelsButton } from '../../../../../features/labels/components/print-labels-dialog';
 import { useCan } from '../../../../../lib/ability';
 import { useMe } from '../../../../../lib/auth';
 import { useDocumentTitle } from '../../../../../lib/use-document-title';
@@ -36,6 +37,23 @@ export default function CatalogueListRoute() {
   // Shares the list's cache entry: only used to offer known categories in the form.
   const categories = useParts(shopId, params).data?.categories ?? [];
   const [adding, setAdding] = useState(false);
+  // Parts chosen for labels, kept across pages and filters, in the order chosen.
+  const [chosen, setChosen] = useState<Map<string, { id: string; number: string }>>(new Map());
+  const selection = useMemo(
+    () => ({
+      isSelected: (id: string) => chosen.has(id),
+      onChange: (rows: { id: string; number: string }[], selected: boolean) =>
+        setChosen((before) => {
+          const next = new Map(before);
+          for (const row of rows) {
+            if (selected) next.set(row.id, { id: row.id, number: row.number });
+            else next.delete(row.id);
+          }
+          return next;
+        }),
+    }),
+    [chosen],
+  );
   useDocumentTitle(membership ? `${membership.shopName} · Catalogue` : 'Catalogue');
 
   if (!membership) return null;
@@ -66,12 +84,24 @@ export default function CatalogueListRoute() {
       />
       <div className="flex flex-col gap-4">
         <ProblemsBanner shopId={shopId} showing={Boolean(params.problemsOnly)} onShow={() => update({ problemsOnly: true })} />
+        {chosen.size > 0 && (
+          <div role="region" aria-label="Chosen parts" className="flex flex-wrap items-center gap-3 rounded-lg border-2 border-accent bg-accent-soft px-4 py-2">
+            <p className="font-bold" aria-live="polite">
+              {chosen.size} {chosen.size === 1 ? 'part' : 'parts'} chosen
+            </p>
+            <PrintLabelsButton shopId={shopId} variant="primary" source={{ kind: 'parts', parts: [...chosen.values()] }} />
+            <Button variant="ghost" onClick={() => setChosen(new Map())}>
+              Clear the choice
+            </Button>
+          </div>
+        )}
         <CatalogueList
           shopId={shopId}
           params={params}
           filtered={filtered}
           onChange={update}
           onClear={clear}
+          selection={selection}
           emptyActions={
             canCreate || canImport ? (
               <div className="flex flex-wrap gap-2">

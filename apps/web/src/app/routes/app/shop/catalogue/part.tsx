@@ -6,6 +6,8 @@ import { paths } from '../../../../../config/paths';
 import { lineageQueryOptions, useLineage } from '../../../../../features/catalogue/api/get-lineage';
 import { partQueryOptions, usePart } from '../../../../../features/catalogue/api/get-part';
 import { PartView } from '../../../../../features/catalogue/components/part-view';
+import { PrintLabelsButton } from '../../../../../features/labels/components/print-labels-dialog';
+import { PartStockPanel } from '../../../../../features/stock/components/part-stock-panel';
 import { useCan } from '../../../../../lib/ability';
 import { ApiError, errorMessage } from '../../../../../lib/api-client';
 import { useDocumentTitle } from '../../../../../lib/use-document-title';
@@ -28,6 +30,7 @@ export default function PartRoute() {
   const part = usePart(shopId, partId);
   const lineage = useLineage(shopId, partId);
   const canEdit = useCan('update', 'Part', { shopId });
+  const canReadStock = useCan('read', 'Stock', { shopId });
   useDocumentTitle(part.data ? `${part.data.part.number} · Catalogue` : 'Part');
 
   const back = (
@@ -49,10 +52,13 @@ export default function PartRoute() {
         <nav aria-label="Breadcrumb" className="text-sm font-bold tracking-wide text-ink-muted uppercase">
           {back}
         </nav>
-        <h1 className="flex flex-wrap items-baseline gap-x-4 gap-y-1">
-          <PartNumber className="text-xl font-bold">{p.number}</PartNumber>
-          <span className="text-lg font-bold">{p.description}</span>
-        </h1>
+        <div className="flex flex-wrap items-start justify-between gap-3">
+          <h1 className="flex flex-wrap items-baseline gap-x-4 gap-y-1">
+            <PartNumber className="text-xl font-bold">{p.number}</PartNumber>
+            <span className="text-lg font-bold">{p.description}</span>
+          </h1>
+          <PrintLabelsButton shopId={shopId} source={{ kind: 'parts', parts: [{ id: p.id, number: p.number }] }} label="Print label" />
+        </div>
       </div>
       <PartView
         shopId={shopId}
@@ -60,6 +66,7 @@ export default function PartRoute() {
         canEdit={canEdit}
         lineage={{ data: lineage.data, isPending: lineage.isPending, error: lineage.error, refetch: () => void lineage.refetch() }}
       />
+      {canReadStock && <PartStockPanel shopId={shopId} partId={p.id} />}
     </>
   );
 }
