@@ -1,5 +1,5 @@
 import { Badge, createColumnHelper, DataTable, PartNumber } from '@tappet/ui';
-import { useMemo } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { listOperations, type Operation, type OpenApiDocument } from '../lib/openapi';
 import { SchemaView } from './schema-view';
 
@@ -94,14 +94,37 @@ export function ApiReference({ doc }: { doc: OpenApiDocument }) {
   );
 }
 
+/**
+ * One operation, folded to its method, path and summary until opened: the document has well over a
+ * hundred operations, and rendering every schema at once made the page slow to show and to read.
+ * A link to `#<operation>` (the table above) opens it.
+ */
 function OperationCard({ doc, op }: { doc: OpenApiDocument; op: Operation }) {
+  const [open, setOpen] = useState(() => typeof window !== 'undefined' && window.location.hash === `#${op.id}`);
+  useEffect(() => {
+    const onHash = () => {
+      if (window.location.hash === `#${op.id}`) setOpen(true);
+    };
+    window.addEventListener('hashchange', onHash);
+    return () => window.removeEventListener('hashchange', onHash);
+  }, [op.id]);
   return (
-    <article id={op.id} aria-labelledby={`${op.id}-title`} className="scroll-mt-4 rounded-lg border-2 border-line bg-surface p-4">
-      <h3 id={`${op.id}-title`} className="flex flex-wrap items-center gap-2">
-        <MethodBadge method={op.method} />
-        <span className="font-mono text-num font-medium break-all">{op.path}</span>
-      </h3>
-      {op.summary && <p className="mt-2">{op.summary}</p>}
+    <details id={op.id} open={open} onToggle={(e) => setOpen(e.currentTarget.open)} className="scroll-mt-4 rounded-lg border-2 border-line bg-surface p-4">
+      <summary className="cursor-pointer">
+        <h3 id={`${op.id}-title`} className="inline-flex flex-wrap items-center gap-2">
+          <MethodBadge method={op.method} />
+          <span className="font-mono text-num font-medium break-all">{op.path}</span>
+        </h3>
+        {op.summary && <span className="ml-2">{op.summary}</span>}
+      </summary>
+      {open && <OperationBody doc={doc} op={op} />}
+    </details>
+  );
+}
+
+function OperationBody({ doc, op }: { doc: OpenApiDocument; op: Operation }) {
+  return (
+    <div>
       {op.description && <p className="mt-1 text-ink-muted">{op.description}</p>}
       <p className="mt-1 text-sm text-ink-muted">{op.needsAuth ? 'Needs a signed-in session.' : 'No sign-in needed.'}</p>
 
@@ -149,6 +172,6 @@ function OperationCard({ doc, op }: { doc: OpenApiDocument; op: Operation }) {
           </ul>
         </div>
       )}
-    </article>
+    </div>
   );
 }
