@@ -9,7 +9,10 @@ test('a person resets a forgotten password through the e-mailed link', async ({ 
 
   await page.goto('/sign-in');
   await page.getByRole('link', { name: /forgot your password/i }).click();
+  // The reset form loads on demand: until it is there, "E-mail" is still the sign-in form's field.
+  await expect(page.getByRole('heading', { name: 'Reset your password' })).toBeVisible();
   await page.getByLabel('E-mail').fill(buyer.email);
+  await expect(page.getByLabel('E-mail')).toHaveValue(buyer.email);
   await page.getByRole('button', { name: 'Send reset link' }).click();
   await expect(page.getByText(/check your inbox/i)).toBeVisible();
 
