@@ -30,3 +30,4 @@ export * from './valuation';
 export * from './reorder';
 export * from './search';
 export * from './checklists';
+export * from './sales';
