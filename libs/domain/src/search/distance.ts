@@ -27,19 +27,25 @@ export function osaDistance(a: string, b: string, max = Number.POSITIVE_INFINITY
   if (Math.abs(n - m) > max) return max + 1;
   if (n === 0) return m;
   if (m === 0) return n;
-  // Three rolling rows: two back for transpositions, one back and the current one.
-  let before = new Array<number>(m + 1).fill(0);
-  let previous = Array.from({ length: m + 1 }, (_, j) => j);
-  let current = new Array<number>(m + 1).fill(0);
+  // Three rolling rows (two back for transpositions, one back, the current one), kept between
+  // calls: the lookup runs this on hundreds of candidates per keystroke.
+  if (rows[0].length <= m) rows = [new Int32Array(2 * m + 2), new Int32Array(2 * m + 2), new Int32Array(2 * m + 2)];
+  let [before, previous, current] = rows;
+  for (let j = 0; j <= m; j++) previous[j] = j;
   for (let i = 1; i <= n; i++) {
     current[0] = i;
     let rowMin = i;
     const ai = a.charCodeAt(i - 1);
+    const aBefore = i > 1 ? a.charCodeAt(i - 2) : -1;
     for (let j = 1; j <= m; j++) {
       const bj = b.charCodeAt(j - 1);
       const cost = ai === bj ? 0 : 1;
-      let value = Math.min(previous[j]! + 1, current[j - 1]! + 1, previous[j - 1]! + cost);
-      if (i > 1 && j > 1 && ai === b.charCodeAt(j - 2) && a.charCodeAt(i - 2) === bj) value = Math.min(value, before[j - 2]! + 1);
+      let value = previous[j]! + 1;
+      const left = current[j - 1]! + 1;
+      if (left < value) value = left;
+      const diagonal = previous[j - 1]! + cost;
+      if (diagonal < value) value = diagonal;
+      if (j > 1 && aBefore === bj && ai === b.charCodeAt(j - 2) && before[j - 2]! + 1 < value) value = before[j - 2]! + 1;
       current[j] = value;
       if (value < rowMin) rowMin = value;
     }
@@ -49,6 +55,8 @@ export function osaDistance(a: string, b: string, max = Number.POSITIVE_INFINITY
   const result = previous[m]!;
   return result > max ? max + 1 : result;
 }
+
+let rows: [Int32Array, Int32Array, Int32Array] = [new Int32Array(64), new Int32Array(64), new Int32Array(64)];
 
 /**
  * The typo distance between two normalised part-number keys: optimal string alignment after
@@ -69,7 +77,13 @@ export function typoTolerance(length: number): number {
  * catalogue key's length). Returns the distance, or null when it is too far.
  */
 export function typosWithin(typed: string, key: string): number | null {
+  return foldedTyposWithin(foldLookalikes(typed), foldLookalikes(key));
+}
+
+/** `typosWithin` for keys already folded with `foldLookalikes` (the lookup folds the typed key once). */
+export function foldedTyposWithin(typed: string, key: string): number | null {
   const tolerance = typoTolerance(key.length);
-  const d = partNumberDistance(typed, key, tolerance);
+  if (Math.abs(typed.length - key.length) > tolerance) return null;
+  const d = osaDistance(typed, key, tolerance);
   return d <= tolerance ? d : null;
 }

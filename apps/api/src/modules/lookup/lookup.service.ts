@@ -1,5 +1,5 @@
 import Fuse from 'fuse.js';
-import { lineageReason, matchDescription, matchNumber, mergeHits, MIN_SUBSTRING_QUERY, normalisePartNumber, typosWithin, type LineageGraph, type SearchHit } from '@tappet/domain';
+import { foldedTyposWithin, foldLookalikes, lineageReason, matchDescription, matchNumber, mergeHits, MIN_SUBSTRING_QUERY, normalisePartNumber, type LineageGraph, type SearchHit } from '@tappet/domain';
 import type { PartSearchQueryParsed, PartSearchResponse, StockSummary } from '@tappet/contracts';
 import type { PartSearchFilters, PartSearchIndex, SearchablePart } from './part-search-index';
 
@@ -17,10 +17,18 @@ const LINEAGE_OPTIONS = 20;
  * (space-separated, as the index holds them) or of one of their tails (the prefix left out).
  */
 export function nearEnough(key: string, keys: string): boolean {
+  return nearEnoughFolded(foldLookalikes(key), keys);
+}
+
+/** `nearEnough` for a typed key already folded (the index's keys are folded when indexed). */
+function nearEnoughFolded(folded: string, keys: string): boolean {
   for (const k of keys.split(' ')) {
     if (!k) continue;
-    if (typosWithin(key, k) !== null) return true;
-    for (let j = 1; k.length - j >= MIN_SUBSTRING_QUERY; j++) if (typosWithin(key, k.slice(j)) !== null) return true;
+    if (foldedTyposWithin(folded, k) !== null) return true;
+    // Tails at most two characters longer or shorter than the typed key can be within tolerance.
+    for (let j = Math.max(1, k.length - folded.length - 2); k.length - j >= MIN_SUBSTRING_QUERY && k.length - j >= folded.length - 2; j++) {
+      if (foldedTyposWithin(folded, k.slice(j)) !== null) return true;
+    }
   }
   return false;
 }
@@ -74,7 +82,8 @@ export function createLookupService(deps: {
 
       // Only candidates that can match are loaded: numbers within the typo tolerance (also without
       // their prefix), descriptions whose words all meet the typed words.
-      const typoIds = typoCandidates.filter((c) => nearEnough(key, c.keys)).map((c) => c.id);
+      const folded = foldLookalikes(key);
+      const typoIds = typoCandidates.filter((c) => nearEnoughFolded(folded, c.keys)).map((c) => c.id);
       const descriptionIds = descriptionCandidates.filter((c) => matchDescription(q, c.description) !== null).map((c) => c.id);
 
       // Lineage starts from exact hits whatever the filters; the filters then apply to every result.
