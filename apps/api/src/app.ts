@@ -10,7 +10,8 @@ import { databaseFor } from './db/write-lock';
 import { staticRouter } from './http/static';
 import { systemClock, type Clock } from './lib/clock';
 import type { Mailer } from './lib/mailer';
-import type { RateLimitStore } from './lib/rate-limiter';
+import type { RateLimitRule, RateLimitStore } from './lib/rate-limiter';
+import { mailRequestLimit } from './middleware/mail-rate-limit';
 import { authenticate } from './middleware/authenticate';
 import { csrfProtection } from './middleware/csrf';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
@@ -77,6 +78,8 @@ export interface AppDeps {
   logger?: Logger;
   authLimits?: Partial<AuthLimits>;
   rateLimitStore?: RateLimitStore;
+  /** Requests that send e-mail, per person and shop and hour (default in middleware/mail-rate-limit.ts). */
+  mailRequestLimit?: RateLimitRule;
   /** The Stripe SDK client; default one built from env (the local fake outside production). */
   stripe?: Stripe;
   /** Built web app; default `dist/apps/web` in the repo. */
@@ -86,6 +89,13 @@ export interface AppDeps {
   /** Where uploaded photos and documents are kept; default a folder store at env.uploadsDir. */
   fileStore?: FileStore;
 }
+
+/** POST routes that send e-mail (besides sign-in, reset and invitations, which have their own limits). */
+export const mailSendingRoutes = [
+  '/shops/:shopId/purchasing/orders/:orderId/send',
+  '/shops/:shopId/purchasing/orders/:orderId/request-approval',
+  '/platform/shops',
+];
 
 /** Builds the Express app (no listen): API, security headers, logs, the web app and fonts. */
 export function createApp(deps: AppDeps): Express {
@@ -178,6 +188,8 @@ export function createApp(deps: AppDeps): Express {
     res.json(openapi);
   });
   api.use(authenticate(env, auth, apiKeys));
+  // Routes that send e-mail on the caller's behalf share one allowance per person and shop.
+  api.post(mailSendingRoutes, mailRequestLimit({ clock, store: deps.rateLimitStore, rule: deps.mailRequestLimit }));
   api.use('/auth', authRouter({ env, auth }));
   api.use('/me', meRouter({ auth }));
   api.use('/invitations', invitationsRouter({ env, staff, auth }));

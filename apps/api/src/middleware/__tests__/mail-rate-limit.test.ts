@@ -1,0 +1,45 @@
+// Routes that send e-mail share an hourly allowance per person and shop (issue 13): the request
+// past it answers 429 with Retry-After, another person is unaffected, and the hour frees it again.
+import { randomUUID } from 'node:crypto';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mailSendingRoutes } from '../../app';
+import { mountedApiRoutes } from '../../test-support/mounted-routes';
+import { createTestContext, csrf, seedShop, signedInAgent, type TestContext } from '../../test-support/test-app';
+
+let ctx: TestContext;
+let shop: Awaited<ReturnType<typeof seedShop>>;
+
+beforeAll(async () => {
+  ctx = await createTestContext({ deps: { mailRequestLimit: { limit: 2, windowMs: 60 * 60_000 } } });
+  shop = await seedShop(ctx, ['owner', 'buyer']);
+});
+afterAll(() => ctx.close());
+
+describe('the e-mail allowance', () => {
+  it('refuses the third request in the hour for one person, not for another, and frees up after the hour', async () => {
+    const buyer = await signedInAgent(ctx.app, shop.byRole.buyer.email, shop.password);
+    const owner = await signedInAgent(ctx.app, shop.byRole.owner.email, shop.password);
+    const send = (agent: typeof buyer) => agent.post(`/api/shops/${shop.shop.id}/purchasing/orders/${randomUUID()}/send`).set(csrf);
+    // Counted whether or not the order exists: the allowance is for attempts.
+    expect((await send(buyer)).status).toBe(404);
+    expect((await buyer.post(`/api/shops/${shop.shop.id}/purchasing/orders/${randomUUID()}/request-approval`).set(csrf)).status).toBe(404);
+    const refused = await send(buyer);
+    expect(refused.status).toBe(429);
+    expect(refused.body.error).toMatchObject({ code: 'rate_limited', message: expect.stringMatching(/Too many e-mails/) });
+    expect(Number(refused.headers['retry-after'])).toBeGreaterThan(0);
+    expect((await send(owner)).status).toBe(404);
+    ctx.clock.advance(60 * 60_000 + 1000);
+    expect((await send(buyer)).status).toBe(404);
+  });
+
+  it('does not count requests without a session', async () => {
+    const anonymous = () => request(ctx.app).post(`/api/shops/${shop.shop.id}/purchasing/orders/${randomUUID()}/send`).set(csrf);
+    for (let i = 0; i < 3; i++) expect((await anonymous()).status).toBe(401);
+  });
+
+  it('lists only routes that exist, so a renamed route cannot slip out of the allowance', () => {
+    const mounted = mountedApiRoutes(ctx.app);
+    for (const route of mailSendingRoutes) expect(mounted).toContain(`POST /api${route}`);
+  });
+});

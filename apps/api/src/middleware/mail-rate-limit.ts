@@ -1,0 +1,35 @@
+import type { RequestHandler } from 'express';
+import type { Clock } from '../lib/clock';
+import { HttpError } from '../lib/http-error';
+import { MemoryRateLimitStore, RateLimiter, type RateLimitRule, type RateLimitStore } from '../lib/rate-limiter';
+
+/**
+ * E-mails sent on a person's behalf (orders to suppliers, approval requests, invoices, estimates,
+ * onboarding invitations): at most this many requests per person and shop (or per person on the
+ * platform) in an hour, so a stolen session or a loop in a script cannot turn Tappet into a spam
+ * relay. Generous for a shop's day; counted per request, success or not.
+ */
+export const defaultMailRequestLimit: RateLimitRule = { limit: 60, windowMs: 60 * 60_000 };
+
+/**
+ * Limits the routes it is mounted on (app.ts) by the signed-in person or API key and the shop in
+ * the path. Mounted after `authenticate`: a request with no identity is not counted (it is refused
+ * later), so strangers cannot use up a shop's allowance.
+ */
+export function mailRequestLimit(deps: { clock: Clock; store?: RateLimitStore; rule?: RateLimitRule }): RequestHandler {
+  const limiter = new RateLimiter(deps.rule ?? defaultMailRequestLimit, deps.clock, deps.store ?? new MemoryRateLimitStore());
+  return (req, _res, next) => {
+    const who = req.auth?.user.id ?? (req.apiKey ? `key:${req.apiKey.id}` : null);
+    if (!who) return next();
+    const key = `mail:${String(req.params['shopId'] ?? 'platform')}:${who}`;
+    const wait = limiter.retryAfterSeconds(key);
+    if (wait > 0) {
+      const minutes = Math.ceil(wait / 60);
+      return next(
+        new HttpError(429, 'rate_limited', `Too many e-mails sent in the last hour. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`, { retryAfterSeconds: wait }, { 'Retry-After': String(wait) }),
+      );
+    }
+    limiter.record(key);
+    next();
+  };
+}
