@@ -33,6 +33,13 @@ export const membershipSchema = z.object({
   role: shopRoleSchema,
   /** Spending limit for purchase orders in the shop's minor currency units; null = no limit set. */
   spendingLimitMinor: z.number().int().nullable(),
+  /** The shop is suspended or cancelled: everything reads, nothing writes (issue 11). */
+  readOnly: z.boolean().optional(),
+  /**
+   * Set only on a platform admin's entry for a shop whose owner granted support access: when the
+   * grant ends. Such an entry is not a membership; it acts as owner minus staff, keys and billing.
+   */
+  supportUntil: z.string().nullable().optional(),
 });
 export type Membership = z.infer<typeof membershipSchema>;
 

@@ -11,7 +11,16 @@ export function abilityFor(me: Me, shopId: string | null): AppAbility {
   const membership = shopId ? me.memberships.find((m) => m.shopId === shopId) : undefined;
   return defineAbilityFor(
     { userId: me.user.id, isPlatformAdmin: me.user.isPlatformAdmin },
-    membership ? { shopId: membership.shopId, role: membership.role, spendingLimitMinor: membership.spendingLimitMinor } : null,
+    membership
+      ? {
+          shopId: membership.shopId,
+          role: membership.role,
+          spendingLimitMinor: membership.spendingLimitMinor,
+          // A suspended or cancelled shop: write controls are hidden, as the API would refuse them.
+          writable: !membership.readOnly,
+          viaSupportGrant: membership.supportUntil != null,
+        }
+      : null,
   );
 }
 

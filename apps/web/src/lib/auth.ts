@@ -31,8 +31,14 @@ export function useMe(): Me | null {
 
 /** The shop the person is working in when the URL does not name one. */
 export function defaultShopId(me: Me): string | null {
-  if (me.activeShopId && me.memberships.some((m) => m.shopId === me.activeShopId)) return me.activeShopId;
-  return me.memberships[0]?.shopId ?? null;
+  const own = me.memberships.filter((m) => !isSupportAccess(m));
+  if (me.activeShopId && own.some((m) => m.shopId === me.activeShopId)) return me.activeShopId;
+  return own[0]?.shopId ?? null;
+}
+
+/** A platform admin's entry for a shop whose owner granted support access (not a membership). */
+export function isSupportAccess(m: MembershipView): boolean {
+  return m.supportUntil != null;
 }
 
 /** Where a signed-in person starts: their shop's home, the platform page, or the no-shop page. */

@@ -1,4 +1,4 @@
-import { IsNull, LessThan, type EntityManager } from 'typeorm';
+import { IsNull, LessThan, MoreThan, type EntityManager } from 'typeorm';
 import type { MeWithActiveShop } from '@tappet/contracts';
 import type { Env } from '../../config/env';
 import { shopScoped } from '../../db/tenant-repository';
@@ -10,7 +10,8 @@ import { hashPassword, passwordProblem, verifyPassword, warmUpDummyHash } from '
 import { RateLimiter, type RateLimitRule, type RateLimitStore, MemoryRateLimitStore } from '../../lib/rate-limiter';
 import { hashToken, newToken } from '../../lib/tokens';
 import { recordAudit, type AuditActor } from '../audit/audit.service';
-import { MembershipEntity, ShopEntity } from '../shops/shops.entity';
+import { MembershipEntity, ShopEntity, readOnlyBillingStates, type BillingState } from '../shops/shops.entity';
+import { SupportGrantEntity } from '../billing/billing.entity';
 import { UserEntity, type User } from '../users/users.entity';
 import { PasswordResetTokenEntity, SessionEntity, type Session } from './auth.entity';
 
@@ -88,18 +89,36 @@ export function createAuthService(deps: AuthServiceDeps) {
   async function buildMe(user: User, activeShopId: string | null): Promise<MeWithActiveShop> {
     const rows = await db.reader
       .createQueryBuilder()
-      .select(['m.shop_id AS shopId', 's.name AS shopName', 'm.role AS role', 'm.spending_limit_minor AS spendingLimitMinor'])
+      .select(['m.shop_id AS shopId', 's.name AS shopName', 'm.role AS role', 'm.spending_limit_minor AS spendingLimitMinor', 's.billing_state AS billingState'])
       .from(MembershipEntity, 'm')
       .innerJoin(ShopEntity.options.name, 's', 's.id = m.shop_id')
       .where('m.user_id = :userId AND m.is_active = 1', { userId: user.id })
       .orderBy('s.name', 'ASC')
-      .getRawMany<MeWithActiveShop['memberships'][number]>();
-    const memberships = rows.map((r) => ({
+      .getRawMany<MeWithActiveShop['memberships'][number] & { billingState: BillingState }>();
+    const memberships: MeWithActiveShop['memberships'] = rows.map((r) => ({
       shopId: r.shopId,
       shopName: r.shopName,
       role: r.role,
       spendingLimitMinor: r.spendingLimitMinor === null ? null : Number(r.spendingLimitMinor),
+      readOnly: readOnlyBillingStates.includes(r.billingState),
     }));
+    if (user.isPlatformAdmin) {
+      // Shops whose owners granted support access now: listed so the console can open them.
+      const grants = await db.reader.find(SupportGrantEntity, { where: { revokedAt: IsNull(), expiresAt: MoreThan(clock.now()) }, order: { expiresAt: 'DESC' } });
+      for (const grant of grants) {
+        if (memberships.some((m) => m.shopId === grant.shopId)) continue;
+        const shop = await db.reader.findOne(ShopEntity, { where: { id: grant.shopId } });
+        if (!shop) continue;
+        memberships.push({
+          shopId: shop.id,
+          shopName: shop.name,
+          role: 'owner',
+          spendingLimitMinor: null,
+          readOnly: readOnlyBillingStates.includes(shop.billingState),
+          supportUntil: grant.expiresAt.toISOString(),
+        });
+      }
+    }
     return {
       user: { id: user.id, email: user.email, name: user.name, isPlatformAdmin: user.isPlatformAdmin },
       memberships,

@@ -23,7 +23,7 @@ describe('POST /api/auth/sign-in', () => {
     expect(res.status).toBe(200);
     expect(meResponseSchema.parse(res.body)).toBeTruthy();
     expect(res.body.user).toEqual({ id: owner.id, email: owner.email, name: owner.name, isPlatformAdmin: false });
-    expect(res.body.memberships).toEqual([{ shopId: shop.shop.id, shopName: shop.shop.name, role: 'owner', spendingLimitMinor: null }]);
+    expect(res.body.memberships).toEqual([{ shopId: shop.shop.id, shopName: shop.shop.name, role: 'owner', spendingLimitMinor: null, readOnly: false }]);
     expect(res.body.activeShopId).toBe(shop.shop.id);
     expect(sessionTokenFrom(res)).toMatch(/^[\w-]{43}$/);
   });
@@ -107,7 +107,7 @@ describe('GET /api/me and sign-out', () => {
     const res = await agent.get('/api/me');
     expect(res.status).toBe(200);
     expect(res.body.user.email).toBe(shop.byRole.buyer.email);
-    expect(res.body.memberships).toEqual([{ shopId: shop.shop.id, shopName: shop.shop.name, role: 'buyer', spendingLimitMinor: 50_000 }]);
+    expect(res.body.memberships).toEqual([{ shopId: shop.shop.id, shopName: shop.shop.name, role: 'buyer', spendingLimitMinor: 50_000, readOnly: false }]);
   });
 
   it('ends the session at sign-out; the old cookie stops working', async () => {

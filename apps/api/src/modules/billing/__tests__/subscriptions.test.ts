@@ -105,6 +105,9 @@ describe('payment trouble', () => {
     expect(refused.body.error.message).toMatch(/read-only.*more than 14 days overdue/);
     expect(refused.body.error.details).toEqual({ reason: 'shop_read_only', billingState: 'suspended' });
     expect(await stateOf(shopId)).toBe('suspended');
+    // /api/me tells the web app, which hides the controls that would be refused.
+    const membershipOf = async () => ((await buyer.get('/api/me')).body.memberships as Array<{ shopId: string; readOnly: boolean }>).find((m) => m.shopId === shopId);
+    expect(await membershipOf()).toMatchObject({ readOnly: true });
     // Reads and the export keep working; the owner can still reach billing to pay.
     expect((await buyer.get(`/api/shops/${shopId}/parts`)).status).toBe(200);
     expect((await owner.get(`/api/shops/${shopId}/export.zip`)).status).toBe(200);
@@ -114,6 +117,7 @@ describe('payment trouble', () => {
     expect((await request(w.fake.url).post(`/_test/invoices/${invoice.id}/pay`).send({})).status).toBe(200);
     expect(await stateOf(shopId)).toBe('active');
     expect((await newPart(buyer, shopId)).status).toBe(201);
+    expect(await membershipOf()).toMatchObject({ readOnly: false });
     w.ctx.clock.advance(-14 * day - 1000);
   });
 

@@ -35,6 +35,12 @@ describe('support access', () => {
     expect(granted.body).toMatchObject({ active: true, note: 'Import looks wrong', expiresAt: new Date(ctx.clock.now().getTime() + 2 * 3600_000).toISOString() });
 
     const admin = await signIn(adminLogin);
+    // /api/me lists the granted shop for the console to open, marked with the grant's end.
+    const me = await admin.get('/api/me');
+    expect(me.body.memberships).toContainEqual(
+      expect.objectContaining({ shopId: shop.shop.id, role: 'owner', supportUntil: granted.body.expiresAt, readOnly: false }),
+    );
+    expect(me.body.activeShopId).toBeNull();
     expect((await admin.get(`/api/shops/${shop.shop.id}/parts`)).status).toBe(200);
     const made = await admin.post(`/api/shops/${shop.shop.id}/parts`).set(csrf).send({ number: 'SA-1', description: 'Added by support' });
     expect(made.status).toBe(201);
@@ -55,6 +61,7 @@ describe('support access', () => {
 
     expect((await owner.delete(`/api/shops/${shop.shop.id}/support-access`).set(csrf)).status).toBe(200);
     expect((await admin.get(`/api/shops/${shop.shop.id}/parts`)).status).toBe(404);
+    expect((await admin.get('/api/me')).body.memberships.some((m: { shopId: string }) => m.shopId === shop.shop.id)).toBe(false);
     expect((await owner.delete(`/api/shops/${shop.shop.id}/support-access`).set(csrf)).status).toBe(404);
     const after = await owner.get(`/api/shops/${shop.shop.id}/support-access`);
     expect(after.body.current).toBeNull();

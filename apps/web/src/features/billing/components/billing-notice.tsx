@@ -1,5 +1,8 @@
 import { Button, buttonClasses, IconAdvise, IconFail } from '@tappet/ui';
+import { useQueryClient } from '@tanstack/react-query';
+import { useEffect } from 'react';
 import { Link } from 'react-router-dom';
+import { meQueryKey, useMe } from '../../../lib/auth';
 import { paths } from '../../../config/paths';
 import { errorMessage } from '../../../lib/api-client';
 import { useCan } from '../../../lib/ability';
@@ -16,6 +19,13 @@ export function BillingNotice({ shopId }: { shopId: string }) {
   const isOwner = useCan('update', 'Billing', { shopId });
   const portal = useOpenPortal(shopId);
   const data = status.data;
+  const queryClient = useQueryClient();
+  const me = useMe();
+  const knownReadOnly = me?.memberships.find((m) => m.shopId === shopId)?.readOnly ?? false;
+  // The state changed since /api/me was read (a payment, a suspension): refresh what the app hides.
+  useEffect(() => {
+    if (data && data.readOnly !== knownReadOnly) void queryClient.invalidateQueries({ queryKey: meQueryKey });
+  }, [data, knownReadOnly, queryClient]);
   if (!data || (data.state !== 'past_due' && !data.readOnly)) return null;
 
   if (data.readOnly) {

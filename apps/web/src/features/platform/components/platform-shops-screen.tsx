@@ -1,6 +1,8 @@
 import { billingStates, onboardShopRequestSchema, shopStateChangeRequestSchema, type BillingStateName, type PlanView, type PlatformShop, type PlatformShopListQuery } from '@tappet/contracts';
 import { Button, createColumnHelper, DataTable, Dialog, EmptyState, ErrorState, FormMessage, LoadingState, Select, StatusPill, TextField, useToast } from '@tappet/ui';
 import { useMemo, useRef, useState, type FormEvent } from 'react';
+import { Link } from 'react-router-dom';
+import { paths } from '../../../config/paths';
 import { errorMessage } from '../../../lib/api-client';
 import { formValues, useFormErrors } from '../../../lib/forms';
 import { billingPill, formatDate, formatPrice } from '../../billing/components/words';
@@ -167,7 +169,16 @@ export function PlatformShopsScreen() {
         header: 'Support access',
         cell: (info) => {
           const v = info.getValue();
-          return v ? <span>Until {dateTime.format(new Date(v))}</span> : <span className="text-ink-muted">Not granted</span>;
+          if (!v) return <span className="text-ink-muted">Not granted</span>;
+          // Granted by the shop's owner: open the shop (every look and change is shown to them).
+          return (
+            <span className="flex flex-col items-start gap-1">
+              <span>Until {dateTime.format(new Date(v))}</span>
+              <Link className="font-bold underline underline-offset-2" to={paths.shop.home.getHref(info.row.original.id)}>
+                Open {info.row.original.name}
+              </Link>
+            </span>
+          );
         },
       }),
       column.display({

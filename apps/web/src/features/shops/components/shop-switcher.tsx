@@ -35,10 +35,15 @@ export function ShopSwitcher({ me, currentShopId }: { me: Me; currentShopId: str
         items={me.memberships.map((m) => ({
           key: m.shopId,
           label: m.shopName,
-          detail: roleLabels[m.role],
+          detail: m.supportUntil ? 'Support access' : roleLabels[m.role],
           current: m.shopId === currentShopId,
           onSelect: () => {
             if (m.shopId === currentShopId) return;
+            if (m.supportUntil) {
+              // Support access is not a membership: the session's active shop stays the same.
+              navigate(paths.shop.home.getHref(m.shopId));
+              return;
+            }
             setActive.mutate(m.shopId, {
               onSuccess: () => {
                 navigate(paths.shop.home.getHref(m.shopId));

@@ -12,7 +12,9 @@ import { clearShopCaches } from '../../../../lib/query-client';
 export const clientLoader =
   (queryClient: QueryClient) =>
   async ({ params }: LoaderFunctionArgs) => {
-    const me = await queryClient.ensureQueryData(meQueryOptions());
+    let me = await queryClient.ensureQueryData(meQueryOptions());
+    // A platform admin may have been granted support access since /api/me was last read.
+    if (me?.user.isPlatformAdmin && !me.memberships.some((m) => m.shopId === params.shopId)) me = await queryClient.fetchQuery(meQueryOptions());
     if (!me || !me.memberships.some((m) => m.shopId === params.shopId)) throw data('Shop not found', { status: 404 });
     return null;
   };
@@ -24,20 +26,41 @@ export default function ShopLayoutRoute() {
   const setActive = useSetActiveShop();
   const { mutate } = setActive;
   const activeShopId = me?.activeShopId;
+  const entry = me?.memberships.find((m) => m.shopId === shopId);
+  const supportUntil = entry?.supportUntil ?? null;
 
   // Data of any other shop must never show here (query keys start with the shop id).
   useEffect(() => clearShopCaches(queryClient, shopId), [queryClient, shopId]);
 
   // Opened by URL (bookmark, back button): make it the session's active shop as well.
   useEffect(() => {
-    if (activeShopId !== undefined && activeShopId !== shopId) mutate(shopId);
-  }, [activeShopId, shopId, mutate]);
+    // Support access is not a membership, so it never becomes the session's active shop.
+    if (activeShopId !== undefined && activeShopId !== shopId && !supportUntil) mutate(shopId);
+  }, [activeShopId, shopId, mutate, supportUntil]);
 
   return (
     <>
+      {supportUntil && <SupportAccessNotice shopName={entry?.shopName ?? ''} until={supportUntil} />}
       <BillingNotice shopId={shopId} />
       <Outlet />
     </>
+  );
+}
+
+const untilFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+
+/** Shown to a platform admin inside a shop whose owner granted support access. */
+function SupportAccessNotice({ shopName, until }: { shopName: string; until: string }) {
+  return (
+    <section aria-label="Support access" className="mb-5 flex flex-wrap items-start gap-3 rounded-md border-2 border-advise bg-advise-soft p-4 text-ink">
+      <div className="flex min-w-0 flex-1 flex-col gap-1">
+        <h2 className="font-bold">Support access to {shopName}</h2>
+        <p className="max-w-prose">
+          Its owner granted access until <time dateTime={until}>{untilFormat.format(new Date(until))}</time>. Everything you open or change here is
+          recorded and shown to the owner. Staff, API keys and billing stay with the shop.
+        </p>
+      </div>
+    </section>
   );
 }
 
