@@ -1,7 +1,7 @@
 import type { Request, RequestHandler } from 'express';
 import { defineAbilityFor, subjectOf, type Action, type SubjectName, type SubjectRecord } from '@tappet/permissions';
 import { idSchema } from '@tappet/contracts';
-import { shopScoped } from '../db/tenant-repository';
+import { readJoinedRow } from '../db/raw-reads';
 import type { Database } from '../db/write-lock';
 import { HttpError, forbidden, notFound } from '../lib/http-error';
 import { MembershipEntity, ShopEntity, readOnlyBillingStates } from '../modules/shops/shops.entity';
@@ -36,7 +36,15 @@ export function tenantContext(db: Database): RequestHandler {
       return next();
     }
     const auth = authOf(req);
-    const membership = await shopScoped(db.reader, MembershipEntity, shopId).findOne({ userId: auth.user.id, isActive: true });
+    // Every request: the membership and its shop in one statement (inactive ones are no membership).
+    const joined = await readJoinedRow(
+      db.reader,
+      'membership-with-shop',
+      [[MembershipEntity, 'm'], [ShopEntity, 's']],
+      'FROM "memberships" "m" JOIN "shops" "s" ON "s"."id" = "m"."shop_id" WHERE "m"."shop_id" = ? AND "m"."user_id" = ?',
+      [shopId, auth.user.id],
+    );
+    const membership = joined?.[0].isActive ? joined[0] : null;
     if (!membership) {
       // A platform admin sees a shop only under its owner's support grant (noted and audited by
       // the support-access preflight); acting as owner, minus staff, keys, billing and grants.
@@ -52,8 +60,7 @@ export function tenantContext(db: Database): RequestHandler {
       refuseWritesWhenReadOnly(req, granted);
       return next();
     }
-    const shop = await db.reader.findOne(ShopEntity, { where: { id: shopId } });
-    if (!shop) throw noSuchShop();
+    const shop = joined![1];
     req.shop = shop;
     req.membership = membership;
     req.ability = defineAbilityFor(

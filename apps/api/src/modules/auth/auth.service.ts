@@ -1,6 +1,7 @@
 import { IsNull, LessThan, MoreThan, type EntityManager } from 'typeorm';
 import type { MeWithActiveShop } from '@tappet/contracts';
 import type { Env } from '../../config/env';
+import { readJoinedRow } from '../../db/raw-reads';
 import { shopScoped } from '../../db/tenant-repository';
 import type { Database } from '../../db/write-lock';
 import type { Clock } from '../../lib/clock';
@@ -182,12 +183,14 @@ export function createAuthService(deps: AuthServiceDeps) {
     /** The session behind a cookie token, or null when it is unknown, expired or its user inactive. */
     async resolveSession(token: string): Promise<AuthContext | null> {
       const id = hashToken(token);
-      const session = await db.reader.findOne(SessionEntity, { where: { id } });
-      if (!session) return null;
+      // Every request: the session and its person in one statement.
+      const found = await readJoinedRow(db.reader, 'session-with-user', [[SessionEntity, 's'], [UserEntity, 'u']], 'FROM "sessions" "s" JOIN "users" "u" ON "u"."id" = "s"."user_id" WHERE "s"."id" = ?', [id]);
+      if (!found) return null;
+      const [session, person] = found;
       const now = clock.now().getTime();
       const idleExpired = now - session.lastSeenAt.getTime() > env.session.idleTimeoutMs;
       const absoluteExpired = now >= session.expiresAt.getTime();
-      const user = idleExpired || absoluteExpired ? null : await db.reader.findOne(UserEntity, { where: { id: session.userId } });
+      const user = idleExpired || absoluteExpired ? null : person;
       if (!user || !user.isActive) {
         await db.write((manager) => manager.delete(SessionEntity, { id }));
         return null;

@@ -10,6 +10,7 @@ import { ShopEntity, type BillingState, type Shop } from '../shops/shops.entity'
 import { BillingEventEntity, PlanEntity, ShopBillingEntity, type Plan, type ShopBilling } from './billing.entity';
 import { billingStatusOf, defaultBilling, deriveBillingState, readOnlyReasonOf } from './billing-state';
 import { catalogueSize, planLimitsFor, seatsUsed, vehicleCount } from './plan-limits';
+import { recordCardPayment, salesCheckoutOf } from '../sales/card-payments';
 
 const conflict = (message: string) => new HttpError(409, 'conflict', message);
 const systemActor: AuditActor = { userId: null, ip: null };
@@ -44,12 +45,17 @@ export function toPlanView(p: Plan): PlanView {
 }
 
 /** The shop's billing record, or the implicit one of a shop that has none yet. */
+/** How long a shop's billing state and record, as read by `refreshState`, are trusted. */
+const refreshEveryMs = 5_000;
+const recentBilling = new Map<string, { at: number; state: Shop['billingState']; record: ShopBilling }>();
+
 export async function billingOf(manager: EntityManager, shop: Pick<Shop, 'id' | 'createdAt'>): Promise<ShopBilling> {
   return (await manager.findOne(ShopBillingEntity, { where: { shopId: shop.id } })) ?? defaultBilling(shop.id, shop.createdAt);
 }
 
 /** Saves a billing record (insert or update), inside a write. */
 export async function saveBilling(manager: EntityManager, record: ShopBilling): Promise<void> {
+  recentBilling.delete(record.shopId);
   const exists = await manager.exists(ShopBillingEntity, { where: { shopId: record.shopId } });
   if (exists) {
     const { shopId, ...rest } = record;
@@ -66,6 +72,7 @@ export async function saveBilling(manager: EntityManager, record: ShopBilling): 
 export async function applyBillingState(manager: EntityManager, shop: Shop, record: ShopBilling, now: Date, actor: AuditActor, cause: string): Promise<BillingState> {
   const state = deriveBillingState(record, now);
   if (state !== shop.billingState) {
+    recentBilling.delete(shop.id);
     await manager.update(ShopEntity, { id: shop.id }, { billingState: state });
     await recordAudit(manager, {
       shopId: shop.id,
@@ -185,11 +192,21 @@ export function createBillingService(deps: BillingServiceDeps) {
      * period running out). Cheap when nothing changed: one read, no write.
      */
     async refreshState(shopId: string): Promise<void> {
-      const shop = await db.reader.findOne(ShopEntity, { where: { id: shopId } });
-      if (!shop) return;
-      const record = await billingOf(db.reader, shop);
       const now = clock.now();
-      if (!timeMovesOn(shop.billingState, deriveBillingState(record, now))) return;
+      // Every request to a shop asks, so the shop's state and billing record are kept for a few
+      // seconds (per process) and the clock is applied to them afresh each time: a trial ending
+      // is seen at once. Writes here forget them; a change made by another process is seen within
+      // seconds, and the write below re-reads everything before it changes anything.
+      let known = recentBilling.get(shopId);
+      if (!known || now.getTime() - known.at < 0 || now.getTime() - known.at >= refreshEveryMs) {
+        const shop = await db.reader.findOne(ShopEntity, { where: { id: shopId } });
+        if (!shop) return;
+        known = { at: now.getTime(), state: shop.billingState, record: await billingOf(db.reader, shop) };
+        if (recentBilling.size > 10_000) recentBilling.clear();
+        recentBilling.set(shopId, known);
+      }
+      if (!timeMovesOn(known.state, deriveBillingState(known.record, now))) return;
+      recentBilling.delete(shopId);
       await db.write(async (manager) => {
         const fresh = await shopOr404(manager, shopId);
         const next = await billingOf(manager, fresh);
@@ -301,7 +318,9 @@ export function createBillingService(deps: BillingServiceDeps) {
       const now = clock.now();
       return db.write(async (manager) => {
         if (await manager.exists(BillingEventEntity, { where: { id: event.id } })) return { duplicate: true };
-        const shopId = sub ? await applySubscription(manager, sub, ref.shopHint, now, event.type) : null;
+        // Sales (issue 12): a one-off Checkout session paying a shop's invoice is the sales module's.
+        const salesSession = salesCheckoutOf(event);
+        const shopId = salesSession ? await recordCardPayment(manager, salesSession, now) : sub ? await applySubscription(manager, sub, ref.shopHint, now, event.type) : null;
         await manager.insert(BillingEventEntity, { id: event.id, type: event.type, shopId, receivedAt: now });
         return { duplicate: false };
       });
