@@ -1,10 +1,12 @@
-// The part of autocannon's API the HTTP benchmark uses (the package ships no types).
+// The part of autocannon's API the HTTP benchmark and the mixed-load run use (the package ships no types).
 declare module 'autocannon' {
   interface Request {
     method?: string;
     path?: string;
     headers?: Record<string, string>;
+    body?: string;
     setupRequest?: (req: Request, context: Record<string, unknown>) => Request;
+    onResponse?: (status: number, body: string, context: Record<string, unknown>) => void;
   }
   interface Options {
     url: string;
