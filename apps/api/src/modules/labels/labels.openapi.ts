@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { binLabelsRequestSchema, labelOptionsSchema, partLabelsRequestSchema, shopIdParamsSchema } from '@tappet/contracts';
+import { binLabelsRequestSchema, countIdParamsSchema, countLabelsRequestSchema, labelOptionsSchema, partLabelsRequestSchema, receiptLabelsRequestSchema, shopIdParamsSchema } from '@tappet/contracts';
 import type { RouteDoc } from '../../openapi/openapi';
 
 const tag = 'labels';
@@ -31,5 +31,29 @@ export const labelRouteDocs: RouteDoc[] = [
     response: pdf,
     responseType: 'application/pdf',
     errors: { 404: 'Not a member of that shop, or a chosen bin not in it' },
+  },
+  {
+    method: 'post',
+    path: '/api/shops/{shopId}/labels/counts/{countId}',
+    summary: 'Labels for the bins of a stock count as a PDF, optionally followed by the parts stocked in each; changes nothing',
+    tag,
+    auth: true,
+    params: countIdParamsSchema,
+    body: countLabelsRequestSchema,
+    response: pdf,
+    responseType: 'application/pdf',
+    errors: { 404: 'Not a member of that shop, or no such count in it' },
+  },
+  {
+    method: 'post',
+    path: '/api/shops/{shopId}/labels/receipts',
+    summary: 'Labels for goods received on purchase receipts as a PDF: one per unit received (perUnit, the default) or one per receipt; changes nothing',
+    tag,
+    auth: true,
+    params: shopIdParamsSchema,
+    body: receiptLabelsRequestSchema,
+    response: pdf,
+    responseType: 'application/pdf',
+    errors: { 404: 'Not a member of that shop, or a chosen receipt not in it' },
   },
 ];

@@ -1,5 +1,5 @@
 import { Router, type Response } from 'express';
-import { binLabelsRequestSchema, labelPdfMediaType, partLabelsRequestSchema, shopIdParamsSchema } from '@tappet/contracts';
+import { binLabelsRequestSchema, countIdParamsSchema, countLabelsRequestSchema, labelPdfMediaType, partLabelsRequestSchema, receiptLabelsRequestSchema, shopIdParamsSchema } from '@tappet/contracts';
 import { authorize, shopOf } from '../../middleware/tenant-context';
 import { bodyOf, validate } from '../../middleware/validate';
 import type { LabelPdf, LabelsService } from './labels.service';
@@ -36,6 +36,22 @@ export function labelsRouter(deps: { labels: LabelsService }): Router {
     authorize(req, 'read', 'Bin');
     if (body.contents) authorize(req, 'read', 'Part');
     sendPdf(res, await deps.labels.binLabels(shopOf(req).shop.id, body), 'bin-labels');
+  });
+
+  // Labels for the bins of a stock count (issue 7): whoever may read counts and bins.
+  router.post('/counts/:countId', validate({ params: countIdParamsSchema, body: countLabelsRequestSchema }), async (req, res) => {
+    const body = bodyOf(countLabelsRequestSchema, req);
+    authorize(req, 'read', 'StockCount');
+    authorize(req, 'read', 'Bin');
+    if (body.contents) authorize(req, 'read', 'Part');
+    sendPdf(res, await deps.labels.countLabels(shopOf(req).shop.id, req.params['countId'] as string, body), 'count-labels');
+  });
+
+  // Labels for what arrived on purchase receipts: one per unit received, or one per receipt.
+  router.post('/receipts', validate({ params: shopIdParamsSchema, body: receiptLabelsRequestSchema }), async (req, res) => {
+    authorize(req, 'read', 'PurchaseOrder');
+    authorize(req, 'read', 'Part');
+    sendPdf(res, await deps.labels.receiptLabels(shopOf(req).shop.id, bodyOf(receiptLabelsRequestSchema, req)), 'receipt-labels');
   });
 
   return router;

@@ -4,8 +4,11 @@ import {
   labelSheetLayouts,
   labelsPerPage,
   maxDistinctLabelsPerRequest,
+  maxLabelBinsPerRequest,
   maxLabelsPerRequest,
   type BinLabelsRequestParsed,
+  type CountLabelsRequestParsed,
+  type ReceiptLabelsRequestParsed,
   type LabelFormat,
   type LabelOptions,
   type PartLabelsRequestParsed,
@@ -16,6 +19,7 @@ import { badRequest, notFound } from '../../lib/http-error';
 import { PartEntity } from '../catalogue/catalogue.entity';
 import { ShopSettingsEntity } from '../settings/settings.entity';
 import { BinEntity, StockLineEntity } from '../stock/stock.entity';
+import { PurchaseReceiptEntity } from '../purchasing/purchasing.entity';
 import { renderLabelPdf, type LabelItem } from './label-pdf';
 
 /** Where a shop keeps its parts: bin codes per part id, most stock first. */
@@ -58,8 +62,13 @@ export function binLine(bins: string[] | undefined): string {
   return `${bins.length === 1 ? 'Bin' : 'Bins'} ${bins.join(', ')}`;
 }
 
-/** Label sheets for a shop's parts and bins (receipts and counts to come). Reads only. */
-export function createLabelsService(deps: { db: Database; binCodesOf?: BinCodesOf }) {
+/** The bins of a stock count (counts.service `binIdsOf`: a foreign or unknown count is a 404). */
+export interface CountBins {
+  binIdsOf(shopId: string, countId: string): Promise<string[]>;
+}
+
+/** Label sheets for a shop's parts, bins, purchase receipts and stock counts. Reads only. */
+export function createLabelsService(deps: { db: Database; binCodesOf?: BinCodesOf; counts?: CountBins }) {
   const { db } = deps;
   const binCodesOf = deps.binCodesOf ?? stockBinCodes(db);
 
@@ -110,7 +119,53 @@ export function createLabelsService(deps: { db: Database; binCodesOf?: BinCodesO
      * A label per bin (code, description, how many parts it holds) and, with `contents`, after
      * each bin a label for every part with stock in it. Unknown or foreign bins are a 404.
      */
-    async binLabels(shopId: string, request: BinLabelsRequestParsed): Promise<LabelPdf> {
+    binLabels,
+
+    /** Labels for the bins of a stock count (and with `contents`, the parts in each). */
+    async countLabels(shopId: string, countId: string, request: CountLabelsRequestParsed): Promise<LabelPdf> {
+      if (!deps.counts) throw new Error('createLabelsService needs `counts` for count labels.');
+      const binIds = await deps.counts.binIdsOf(shopId, countId);
+      if (binIds.length === 0) throw badRequest('This count covers no bins: there is nothing to label.');
+      return binLabels(shopId, { ...request, binIds: binIds.slice(0, maxLabelBinsPerRequest) });
+    },
+
+    /**
+     * Labels for what arrived: one per unit received (or one per receipt), with the part's number,
+     * description and the bin it went into. Unknown or foreign receipts are a 404.
+     */
+    async receiptLabels(shopId: string, request: ReceiptLabelsRequestParsed): Promise<LabelPdf> {
+      const receipts = await shopScoped(db.reader, PurchaseReceiptEntity, shopId).find({ id: In(request.receiptIds) });
+      const byId = new Map(receipts.map((r) => [r.id, r]));
+      if (request.receiptIds.some((id) => !byId.has(id))) throw notFound('One of the chosen receipts is not in this shop.');
+      const lines = await db.reader.query<Array<{ id: string; partId: string }>>(
+        `SELECT id, part_id AS partId FROM purchase_order_lines WHERE shop_id = ? AND id IN (${receipts.map(() => '?').join(', ')})`,
+        [shopId, ...receipts.map((r) => r.lineId)],
+      );
+      const partOfLine = new Map(lines.map((l) => [l.id, l.partId]));
+      const partIds = [...new Set(receipts.map((r) => partOfLine.get(r.lineId)).filter((id): id is string => id !== undefined))];
+      const parts = partIds.length ? await shopScoped(db.reader, PartEntity, shopId).find({ id: In(partIds) }) : [];
+      const partById = new Map(parts.map((p) => [p.id, p]));
+      const bins = await shopScoped(db.reader, BinEntity, shopId).find({ id: In([...new Set(receipts.map((r) => r.binId))]) });
+      const binCode = new Map(bins.map((b) => [b.id, b.code]));
+      const items: LabelItem[] = [];
+      for (const id of request.receiptIds) {
+        const receipt = byId.get(id)!;
+        const part = partById.get(partOfLine.get(receipt.lineId) ?? '');
+        if (!part) continue;
+        const copies = request.perUnit ? receipt.quantity : 1;
+        for (let c = 0; c < copies; c += 1) items.push({ code: part.number, title: part.description, subtitle: binLine(binCode.has(receipt.binId) ? [binCode.get(receipt.binId)!] : []) });
+      }
+      if (items.length === 0) throw badRequest('Nothing to label on those receipts.');
+      if (items.length > maxLabelsPerRequest) throw badRequest(`That is ${items.length} labels; print at most ${maxLabelsPerRequest} at a time (one per receipt, or fewer receipts).`);
+      return render(shopId, items, request, items.length === 1 ? `Label ${items[0]?.code ?? ''}` : `${items.length} labels for goods received`);
+    },
+  };
+
+  /**
+   * A label per bin (code, description, how many parts it holds) and, with `contents`, after
+   * each bin a label for every part with stock in it. Unknown or foreign bins are a 404.
+   */
+  async function binLabels(shopId: string, request: BinLabelsRequestParsed): Promise<LabelPdf> {
       const bins = await shopScoped(db.reader, BinEntity, shopId).find({ id: In(request.binIds) });
       const byId = new Map(bins.map((b) => [b.id, b]));
       if (request.binIds.some((id) => !byId.has(id))) throw notFound('One of the chosen bins is not in this shop.');
@@ -133,8 +188,7 @@ export function createLabelsService(deps: { db: Database; binCodesOf?: BinCodesO
         throw badRequest(`These bins need ${items.length} labels; print at most ${Math.min(maxLabelsPerRequest, maxDistinctLabelsPerRequest)} different labels at a time (choose fewer bins).`);
       }
       return render(shopId, items, request, items.length === 1 ? `Bin ${items[0]?.code ?? ''}` : `${items.length} bin labels`);
-    },
-  };
+  }
 }
 
 export type LabelsService = ReturnType<typeof createLabelsService>;
