@@ -152,6 +152,7 @@ export async function seedPurchasingDemo(manager: EntityManager, shopId: string,
       unitPriceMinor: l.priceMinor,
       coreDepositMinor: i === 0 ? (extra.coreDepositMinor ?? 0) : 0,
       purpose: null,
+      specialOrderId: null,
     }));
     for (const line of lines) {
       const [p] = await manager.query<Array<{ description: string }>>(`SELECT description FROM parts WHERE shop_id = ? AND id = ?`, [shopId, line.partId]);

@@ -168,6 +168,8 @@ export const orderLineInputSchema = z
     coreDepositMinor: minor.default(0),
     /** What the part is needed for (a special order), if anything. */
     purpose: z.string().trim().min(1).max(200).nullable().default(null),
+    /** The job's special order this line buys for: what arrives is held for that job. */
+    specialOrderId: idSchema.nullable().default(null),
   })
   .strict();
 
@@ -189,7 +191,10 @@ export const orderUpdateSchema = z
   .strict()
   .refine((v) => Object.keys(v).length > 0, 'Change at least one field.');
 
-export const orderFromReorderSchema = z.object({ partIds: z.array(idSchema).min(1, 'Choose at least one suggestion.').max(500) }).strict();
+export const orderFromReorderSchema = z
+  .object({ partIds: z.array(idSchema).max(500).default([]), specialOrderIds: z.array(idSchema).max(500).default([]) })
+  .strict()
+  .refine((v) => v.partIds.length + v.specialOrderIds.length > 0, { message: 'Choose at least one suggestion.', path: ['partIds'] });
 export const reasonBodySchema = z.object({ reason: reasonSchema }).strict();
 
 export const receiptInputSchema = z
@@ -227,6 +232,7 @@ export const orderLineSchema = z.object({
   coreDepositMinor: z.number().int(),
   lineTotalMinor: z.number().int(),
   purpose: z.string().nullable(),
+  specialOrderId: idSchema.nullable(),
 });
 
 export const receiptSchema = z.object({
@@ -355,7 +361,28 @@ export const reorderGroupSchema = z.object({
   minOrderValueMinor: z.number().int(),
   shortfallMinor: z.number().int(),
   partIds: z.array(idSchema),
+  specialOrderIds: z.array(idSchema),
 });
+
+/** A job's special order waiting to be bought: the quantity the job needs, rounded up to the supplier's pack. */
+export const specialOrderSuggestionSchema = z.object({
+  specialOrderId: idSchema,
+  jobId: idSchema,
+  jobNumber: z.number().int(),
+  partId: idSchema,
+  partNumber: z.string(),
+  description: z.string(),
+  needed: z.number().int(),
+  quantity: z.number().int(),
+  free: z.number(),
+  supplierId: idSchema.nullable(),
+  supplierName: z.string().nullable(),
+  unitPriceMinor: z.number().int().nullable(),
+  valueMinor: z.number().int().nullable(),
+  currency: z.string().nullable(),
+  requestedAt: z.string(),
+});
+export type SpecialOrderSuggestion = z.infer<typeof specialOrderSuggestionSchema>;
 
 export const stockHealthRowSchema = z.object({ partId: idSchema, partNumber: z.string(), description: z.string(), onHand: z.number().int(), valueMinor: z.number().int(), lastIssuedAt: z.string().nullable(), issuedInWindow: z.number() });
 
@@ -363,6 +390,7 @@ export const reorderListResponseSchema = z.object({
   generatedAt: z.string(),
   settings: z.object({ demandWindowDays: z.number().int(), deadStockDays: z.number().int(), serviceLevel: z.number(), orderingCostMinor: z.number().int(), holdingCostRatePercent: z.number(), currency: z.string() }),
   suggestions: z.array(reorderSuggestionSchema),
+  specialOrders: z.array(specialOrderSuggestionSchema),
   groups: z.array(reorderGroupSchema),
   slowMovers: z.array(stockHealthRowSchema),
   deadStock: z.array(stockHealthRowSchema),

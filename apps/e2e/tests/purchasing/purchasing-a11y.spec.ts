@@ -14,7 +14,7 @@ async function expectNoSeriousViolations(page: Page, screen: string) {
 }
 
 test('the purchasing screens with data, in light and dark themes', async ({ page }) => {
-  test.setTimeout(120_000);
+  test.setTimeout(240_000);
   const shop = await createTestShop({ roles: ['owner'] });
   const shopId = shop.shop.id;
   await signInThroughApi(page.request, userWithRole(shop, 'owner').email, shop.password);
@@ -56,6 +56,20 @@ test('the purchasing screens with data, in light and dark themes', async ({ page
     await expect(page.getByText('Enter the part number.')).toBeVisible();
     await expectNoSeriousViolations(page, `supplier page, add listing with errors (${scheme})`);
     await page.keyboard.press('Escape');
+
+    await page.goto(`/shops/${shopId}/purchasing/orders/${order.id}`);
+    await page.getByRole('button', { name: 'Change lines…' }).click();
+    const change = page.getByRole('dialog', { name: /Change PO-\d{6}/ });
+    await change.getByLabel('Quantity, line 1').fill('0');
+    await change.getByRole('button', { name: 'Save lines' }).click();
+    await expect(change.getByText('Order a whole number, at least 1.')).toBeVisible();
+    await expectNoSeriousViolations(page, `change order lines with an error (${scheme})`);
+    await page.keyboard.press('Escape');
+
+    await page.goto(`/shops/${shopId}/catalogue/${world.newPartId}`);
+    await page.getByRole('region', { name: 'Buying this part' }).getByRole('button', { name: 'Change buying choices' }).click();
+    await expect(page.getByLabel('Minimum on hand')).toBeVisible();
+    await expectNoSeriousViolations(page, `part page, buying choices (${scheme})`);
 
     await page.goto(`/shops/${shopId}/purchasing/returns`);
     await expect(page.getByRole('table', { name: 'Returns and cores' })).toBeVisible();

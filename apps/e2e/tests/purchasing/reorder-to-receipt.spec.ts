@@ -41,12 +41,22 @@ test('from the reorder list to a sent order to a partial receipt, with stock and
   // Six arrive now; the rest stays on back-order.
   await page.getByRole('button', { name: 'Receive goods…' }).click();
   const dialog = page.getByRole('dialog', { name: `Receive against ${order.reference}` });
-  await dialog.getByLabel('Quantity of CR-4411 received').fill('6');
+  // A keyboard-wedge scanner types the supplier's number and Enter: the line is picked, nothing is submitted.
+  await dialog.getByLabel('Scan or type a part number').pressSequentially('MARRICK 411');
+  await dialog.getByLabel('Scan or type a part number').press('Enter');
+  await expect(dialog.getByLabel('Quantity of CR-4411 received')).toBeFocused();
+  await page.screenshot({ path: '/tmp/purchasing-receive.png' });
+  await page.keyboard.type('6');
   await dialog.getByLabel('Bin for CR-4411').selectOption({ label: 'C-07' });
   await dialog.getByRole('button', { name: 'Receive' }).click();
   await expect(page.getByText('Partly received', { exact: true })).toBeVisible();
   await expect(page.getByText(/6 × CR-4411 into bin C-07 at £5\.00 each/)).toBeVisible();
   await page.screenshot({ path: '/tmp/purchasing-order.png', fullPage: true });
+
+  // Labels for what arrived (through the part labels: one label per part, copies chosen in the dialog).
+  await page.getByRole('button', { name: 'Print labels for what arrived' }).click();
+  await expect(page.getByRole('dialog').getByText('CR-4411')).toBeVisible();
+  await page.keyboard.press('Escape');
 
   const stock = await (await page.request.get(`/api/shops/${shopId}/stock/parts/${world.newPartId}`)).json();
   expect(JSON.stringify(stock)).toContain('"onHand":6');

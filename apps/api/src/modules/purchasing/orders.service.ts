@@ -12,10 +12,13 @@ import { recordAudit, type AuditActor } from '../audit/audit.service';
 import { PartEntity } from '../catalogue/catalogue.entity';
 import { ShopEntity } from '../shops/shops.entity';
 import { ShopSettingsEntity } from '../settings/settings.entity';
+import { JobEntity, JobSpecialOrderEntity } from '../jobs/jobs.entity';
+import { setSpecialOrderStatus } from '../jobs/jobs.service';
 import { BinEntity } from '../stock/stock.entity';
 import { holdStock, receiveStock } from '../stock/stock.service';
 import { convertMinorUnits } from './money';
 import { renderOrderPdf } from './order-pdf';
+import { LIVE_ORDER_STATES, receivedForSpecialOrder } from './special-orders';
 import { ListingEntity, PurchaseOrderEntity, PurchaseOrderLineEntity, PurchaseReceiptEntity, type PurchaseOrderLineRow, type PurchaseOrderRow, type SupplierRow } from './purchasing.entity';
 import { partOf, shopCurrencyOf, supplierOf } from './suppliers.service';
 
@@ -94,6 +97,7 @@ export function createOrdersService(deps: { db: Database; clock: Clock; mailer: 
         coreDepositMinor: l.coreDepositMinor,
         lineTotalMinor: l.quantity * (l.unitPriceMinor + l.coreDepositMinor),
         purpose: l.purpose,
+        specialOrderId: l.specialOrderId,
       })),
       receipts: receipts.map((r) => ({
         id: String(r['id']),
@@ -153,6 +157,7 @@ export function createOrdersService(deps: { db: Database; clock: Clock; mailer: 
       const listing = await shopScoped(manager, ListingEntity, shopId).findOne({ supplierId: supplier.id, partId: part.id });
       const price = input.unitPriceMinor ?? listing?.priceMinor;
       if (price === undefined) throw badRequest(`${supplier.name} has no listing for ${part.number}: enter its unit price.`, { line: i });
+      const special = input.specialOrderId ? await specialOrderFor(manager, shopId, input.specialOrderId, part.id, part.number, i) : null;
       lines.push({
         id: randomUUID(),
         shopId,
@@ -166,10 +171,37 @@ export function createOrdersService(deps: { db: Database; clock: Clock; mailer: 
         cancelledQuantity: 0,
         unitPriceMinor: price,
         coreDepositMinor: input.coreDepositMinor,
-        purpose: input.purpose,
+        purpose: input.purpose ?? (special ? `Special order for job ${special.jobNumber}` : null),
+        specialOrderId: special?.id ?? null,
       });
     }
+    const seen = new Set<string>();
+    for (const [i, l] of lines.entries()) {
+      if (!l.specialOrderId) continue;
+      if (seen.has(l.specialOrderId)) throw badRequest('A special order can be on one line only.', { line: i });
+      seen.add(l.specialOrderId);
+    }
     return lines;
+  }
+
+  /**
+   * A job's special order a line may buy for: in this shop, for the same part, still open and not
+   * already on another live order (the caller has removed this order's own lines first).
+   */
+  async function specialOrderFor(manager: EntityManager, shopId: string, specialOrderId: string, partId: string, partNumber: string, line: number): Promise<{ id: string; jobNumber: number }> {
+    const row = await shopScoped(manager, JobSpecialOrderEntity, shopId).findOne({ id: specialOrderId });
+    if (!row) throw notFound('No such special order in this shop.');
+    if (row.partId !== partId) throw badRequest(`That special order is for another part, not ${partNumber}.`, { line });
+    if (row.status !== 'open' && row.status !== 'ordered') throw orderConflict('special_order_not_open', `That special order is already ${row.status}.`);
+    const [taken] = await manager.query<Array<{ number: number }>>(
+      `SELECT o.number FROM purchase_order_lines l JOIN purchase_orders o ON o.shop_id = l.shop_id AND o.id = l.order_id
+       WHERE l.shop_id = ? AND l.special_order_id = ? AND o.status IN (${LIVE_ORDER_STATES.map(() => '?').join(', ')}) LIMIT 1`,
+      [shopId, specialOrderId, ...LIVE_ORDER_STATES],
+    );
+    if (taken) throw orderConflict('special_order_taken', `That special order is already on ${orderReference(Number(taken.number))}.`);
+    if ((await receivedForSpecialOrder(manager, shopId, specialOrderId)) >= row.quantity) throw orderConflict('special_order_not_open', 'Everything that special order asked for has arrived.');
+    const job = await shopScoped(manager, JobEntity, shopId).findOne({ id: row.jobId });
+    return { id: row.id, jobNumber: job?.number ?? 0 };
   }
 
   function totals(lines: PurchaseOrderLineRow[], rate: string, currency: string, shopCurrency: string) {
@@ -377,6 +409,12 @@ export function createOrdersService(deps: { db: Database; clock: Clock; mailer: 
           );
         }
         await transition(manager, o, { status: 'sent', sentAt: clock.now() });
+        // The jobs waiting for these parts now see them as ordered.
+        for (const l of await linesOf(manager, shopId, orderId)) {
+          if (!l.specialOrderId) continue;
+          const special = await shopScoped(manager, JobSpecialOrderEntity, shopId).findOne({ id: l.specialOrderId });
+          if (special?.status === 'open') await setSpecialOrderStatus(manager, shopId, special.id, 'ordered', actor, clock.now());
+        }
         await audit(manager, shopId, actor, 'purchase_order.sent', orderId, { status: 'sent', to: supplier.email, totalMinor: o.totalMinor });
       });
       const order = await view(db.reader, shopId, orderId);
@@ -480,8 +518,18 @@ export function createOrdersService(deps: { db: Database; clock: Clock; mailer: 
             userId: actor.userId,
             receivedAt: now,
           });
-          // A special order: what arrives is set aside for its purpose at once.
-          if (line.purpose) await holdStock(manager, shopId, { partId: line.partId, binId: item.binId, condition: item.condition, quantity: item.quantity, purpose: `${line.purpose} (${reference})`.slice(0, 200) }, { actor, at: now });
+          // A special order: what arrives is set aside for its job (up to what the job asked for; a
+          // pack's extra units stay free) and the job's special order moves to received once covered.
+          // A line with only a purpose is held whole for that purpose.
+          if (line.specialOrderId) {
+            const special = await shopScoped(manager, JobSpecialOrderEntity, shopId).findOne({ id: line.specialOrderId });
+            if (special) {
+              const covered = Math.min(await receivedForSpecialOrder(manager, shopId, special.id), special.quantity);
+              const hold = Math.min(item.quantity, special.quantity - covered);
+              if (hold > 0) await holdStock(manager, shopId, { partId: line.partId, binId: item.binId, condition: item.condition, quantity: hold, purpose: `${line.purpose ?? 'Special order'} (${reference})`.slice(0, 200), jobId: special.jobId }, { actor, at: now });
+              if (covered + item.quantity >= special.quantity && special.status !== 'received' && special.status !== 'cancelled') await setSpecialOrderStatus(manager, shopId, special.id, 'received', actor, now);
+            }
+          } else if (line.purpose) await holdStock(manager, shopId, { partId: line.partId, binId: item.binId, condition: item.condition, quantity: item.quantity, purpose: `${line.purpose} (${reference})`.slice(0, 200) }, { actor, at: now });
           line.receivedQuantity += item.quantity;
           await manager.update(PurchaseOrderLineEntity, { shopId, id: line.id }, { receivedQuantity: line.receivedQuantity });
           await manager.update(ListingEntity, { shopId, supplierId: o.supplierId, partId: line.partId }, { lastPaidUnitMinor: unitCost, lastPaidAt: now });

@@ -187,6 +187,8 @@ export interface PurchaseOrderLineRow {
   unitPriceMinor: number;
   coreDepositMinor: number;
   purpose: string | null;
+  /** The job's special order this line buys for (jobs module); what arrives is held for that job. */
+  specialOrderId: string | null;
 }
 
 export const PurchaseOrderLineEntity = new EntitySchema<PurchaseOrderLineRow>({
@@ -206,6 +208,7 @@ export const PurchaseOrderLineEntity = new EntitySchema<PurchaseOrderLineRow>({
     unitPriceMinor: { type: 'integer', name: 'unit_price_minor' },
     coreDepositMinor: { type: 'integer', name: 'core_deposit_minor' },
     purpose: { type: 'varchar', length: 200, nullable: true },
+    specialOrderId: { type: 'varchar', length: 36, name: 'special_order_id', nullable: true },
   },
 });
 

@@ -153,7 +153,7 @@ export function purchasingRouter(deps: PurchasingDeps): Router {
   });
   router.post('/orders/from-reorder', validate({ params: shopIdParamsSchema, body: orderFromReorderSchema }), async (req, res) => {
     authorize(req, 'create', 'PurchaseOrder');
-    res.status(201).json(await reorder.draftOrders(shopIdOf(req), bodyOf(orderFromReorderSchema, req).partIds, auditActorOf(req)));
+    res.status(201).json(await reorder.draftOrders(shopIdOf(req), bodyOf(orderFromReorderSchema, req), auditActorOf(req)));
   });
   router.get('/orders/:orderId', validate({ params: orderIdParamsSchema }), async (req, res) => {
     authorize(req, 'read', 'PurchaseOrder');

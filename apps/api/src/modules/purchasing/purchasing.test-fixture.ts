@@ -78,7 +78,7 @@ export async function seedPurchasingFixture(db: Database, shopId: string, spare 
           updatedAt: at,
         });
         const lineId = randomUUID();
-        await manager.insert(PurchaseOrderLineEntity, { id: lineId, shopId, orderId: id, position: 1, partId: main.id, supplierNumber: null, description: main.description, quantity: 100, receivedQuantity: 0, cancelledQuantity: 0, unitPriceMinor: 1000, coreDepositMinor: 0, purpose: null });
+        await manager.insert(PurchaseOrderLineEntity, { id: lineId, shopId, orderId: id, position: 1, partId: main.id, supplierNumber: null, description: main.description, quantity: 100, receivedQuantity: 0, cancelledQuantity: 0, unitPriceMinor: 1000, coreDepositMinor: 0, purpose: null, specialOrderId: null });
         lines.set(id, lineId);
         orders[status].push(id);
       }

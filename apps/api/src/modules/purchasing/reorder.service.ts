@@ -1,5 +1,5 @@
-import { decideReorder, demandStats, substituteSupply, type SubstituteStock } from '@tappet/domain';
-import { defaultShopSettings, type PurchaseOrder, type ReorderListResponse, type ReorderSuggestion } from '@tappet/contracts';
+import { decideReorder, demandStats, roundToPacks, substituteSupply, type SubstituteStock } from '@tappet/domain';
+import { defaultShopSettings, type PurchaseOrder, type ReorderListResponse, type ReorderSuggestion, type SpecialOrderSuggestion } from '@tappet/contracts';
 import type { Database } from '../../db/write-lock';
 import type { Clock } from '../../lib/clock';
 import type { AuditActor } from '../audit/audit.service';
@@ -8,6 +8,7 @@ import type { CatalogueService } from '../catalogue/catalogue.service';
 import { ShopSettingsEntity } from '../settings/settings.entity';
 import { freeStockByPart } from '../stock/stock.queries';
 import type { OrdersService } from './orders.service';
+import { waitingSpecialOrders } from './special-orders';
 import { ListingEntity, PartPurchasingEntity, SupplierEntity, type ListingRow, type SupplierRow } from './purchasing.entity';
 import type { SuppliersService } from './suppliers.service';
 
@@ -202,13 +203,49 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
     }
     suggestions.sort((a, b) => (a.supplierName ?? '\uffff').localeCompare(b.supplierName ?? '\uffff') || a.partNumber.localeCompare(b.partNumber));
 
+    // Jobs' special orders waiting to be bought (open, or ordered on an order cancelled or closed
+    // short): what is still to buy, rounded up to the supplier's pack, marked for the job. They are
+    // bought whatever the stock position (free stock is shown so the buyer can hold it instead).
+    const specialOrders: SpecialOrderSuggestion[] = [];
+    for (const so of await waitingSpecialOrders(db.reader, shopId)) {
+      const part = parts.get(so.partId);
+      if (!part) continue;
+      const choice = chooseListing(listingsByPart.get(so.partId) ?? [], manual.get(so.partId)?.preferredSupplierId ?? null, supplierRows);
+      const supplier = choice ? supplierRows.get(choice.supplierId)! : null;
+      const quantity = choice ? roundToPacks(so.remaining, { packSize: choice.packSize, minOrderQty: choice.minOrderQty }).quantity : so.remaining;
+      specialOrders.push({
+        specialOrderId: so.id,
+        jobId: so.jobId,
+        jobNumber: Number(so.jobNumber),
+        partId: so.partId,
+        partNumber: part.number,
+        description: part.description,
+        needed: so.remaining,
+        quantity,
+        free: free.get(so.partId) ?? 0,
+        supplierId: supplier?.id ?? null,
+        supplierName: supplier?.name ?? null,
+        unitPriceMinor: choice?.priceMinor ?? null,
+        valueMinor: choice ? choice.priceMinor * quantity : null,
+        currency: supplier?.currency ?? null,
+        requestedAt: so.createdAt.toISOString(),
+      });
+    }
+
     const groups = new Map<string | null, ReorderListResponse['groups'][number]>();
     for (const s of suggestions) {
       const supplier = s.supplierId ? supplierRows.get(s.supplierId)! : null;
       let g = groups.get(s.supplierId);
-      if (!g) groups.set(s.supplierId, (g = { supplierId: s.supplierId, supplierName: s.supplierName, currency: s.currency, totalMinor: 0, minOrderValueMinor: supplier?.minOrderValueMinor ?? 0, shortfallMinor: 0, partIds: [] }));
+      if (!g) groups.set(s.supplierId, (g = { supplierId: s.supplierId, supplierName: s.supplierName, currency: s.currency, totalMinor: 0, minOrderValueMinor: supplier?.minOrderValueMinor ?? 0, shortfallMinor: 0, partIds: [], specialOrderIds: [] }));
       g.totalMinor += s.valueMinor ?? 0;
       g.partIds.push(s.partId);
+    }
+    for (const s of specialOrders) {
+      const supplier = s.supplierId ? supplierRows.get(s.supplierId)! : null;
+      let g = groups.get(s.supplierId);
+      if (!g) groups.set(s.supplierId, (g = { supplierId: s.supplierId, supplierName: s.supplierName, currency: s.currency, totalMinor: 0, minOrderValueMinor: supplier?.minOrderValueMinor ?? 0, shortfallMinor: 0, partIds: [], specialOrderIds: [] }));
+      g.totalMinor += s.valueMinor ?? 0;
+      g.specialOrderIds.push(s.specialOrderId);
     }
     for (const g of groups.values()) g.shortfallMinor = Math.max(0, g.minOrderValueMinor - g.totalMinor);
 
@@ -217,6 +254,7 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
       generatedAt: now.toISOString(),
       settings: { demandWindowDays: window, deadStockDays, serviceLevel, orderingCostMinor, holdingCostRatePercent, currency },
       suggestions,
+      specialOrders,
       groups: [...groups.values()],
       ...health,
       suggestionListings,
@@ -250,20 +288,28 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
     },
 
     /**
-     * Turns suggestions into draft orders, one per supplier, at the listed prices, in one
-     * transaction. A foreign-currency supplier takes the rate of its latest order in that currency;
-     * suggestions without a supplier (or without a known rate) are skipped with the reason.
+     * Turns suggestions (and jobs' special orders) into draft orders, one per supplier, at the
+     * listed prices, in one transaction. A foreign-currency supplier takes the rate of its latest
+     * order in that currency; what has no supplier (or no known rate) is skipped with the reason.
+     * A special order's line is linked to it, so the receipt holds what arrives for the job.
      */
-    async draftOrders(shopId: string, partIds: string[], actor: AuditActor): Promise<{ orders: PurchaseOrder[]; skipped: Array<{ partId: string; reason: string }> }> {
+    async draftOrders(shopId: string, choice: { partIds: string[]; specialOrderIds: string[] }, actor: AuditActor): Promise<{ orders: PurchaseOrder[]; skipped: Array<{ partId: string; reason: string }> }> {
       const computed = await list(shopId);
-      const wanted = new Set(partIds);
       const skipped: Array<{ partId: string; reason: string }> = [];
-      const bySupplier = new Map<string, ReorderSuggestion[]>();
-      for (const id of wanted) {
+      type Line = { partId: string; quantity: number; unitPriceMinor: number | null; specialOrderId: string | null };
+      const bySupplier = new Map<string, Line[]>();
+      const add = (supplierId: string, line: Line) => bySupplier.set(supplierId, [...(bySupplier.get(supplierId) ?? []), line]);
+      for (const id of new Set(choice.partIds)) {
         const s = computed.suggestions.find((x) => x.partId === id);
         if (!s) skipped.push({ partId: id, reason: 'Not on the reorder list (nothing is due, or no such part in this shop).' });
         else if (!s.supplierId) skipped.push({ partId: id, reason: 'No supplier lists this part.' });
-        else bySupplier.set(s.supplierId, [...(bySupplier.get(s.supplierId) ?? []), s]);
+        else add(s.supplierId, { partId: s.partId, quantity: s.quantity, unitPriceMinor: s.unitPriceMinor, specialOrderId: null });
+      }
+      for (const id of new Set(choice.specialOrderIds)) {
+        const s = computed.specialOrders.find((x) => x.specialOrderId === id);
+        if (!s) skipped.push({ partId: id, reason: 'That special order is not waiting to be ordered (already ordered, or not in this shop).' });
+        else if (!s.supplierId) skipped.push({ partId: s.partId, reason: `No supplier lists ${s.partNumber} (special order for job ${s.jobNumber}).` });
+        else add(s.supplierId, { partId: s.partId, quantity: s.quantity, unitPriceMinor: s.unitPriceMinor, specialOrderId: s.specialOrderId });
       }
       const rates = new Map<string, string>();
       for (const supplierId of bySupplier.keys()) {
@@ -278,7 +324,7 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
       }
       const ids = await db.write(async (manager) => {
         const out: string[] = [];
-        for (const [supplierId, list] of bySupplier) {
+        for (const [supplierId, lines] of bySupplier) {
           out.push(
             await orders.insertDraft(
               manager,
@@ -287,7 +333,7 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
                 supplierId,
                 exchangeRate: rates.get(supplierId),
                 note: 'Drafted from the reorder list.',
-                lines: list.map((s) => ({ partId: s.partId, quantity: s.quantity, unitPriceMinor: s.unitPriceMinor ?? undefined, coreDepositMinor: 0, purpose: null })),
+                lines: lines.map((l) => ({ partId: l.partId, quantity: l.quantity, unitPriceMinor: l.unitPriceMinor ?? undefined, coreDepositMinor: 0, purpose: null, specialOrderId: l.specialOrderId })),
               },
               actor,
             ),

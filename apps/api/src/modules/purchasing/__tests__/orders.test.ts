@@ -157,6 +157,24 @@ describe('the life of a purchase order', () => {
     const again = await buyer.post(`/api/shops/${shopId}/purchasing/orders/${draft.id}/cancel`).set(csrf).send({ reason: 'Twice.' });
     expect(again.status).toBe(409);
   });
+
+  it('changes the lines of an approved order (back to draft, totals again), and not of a sent one', async () => {
+    const supplierId = await addSupplier(owner, shopId);
+    const a = await addPart(owner, shopId, 'ED-1');
+    const b = await addPart(owner, shopId, 'ED-2');
+    const draft = await post(buyer, shopId, '/orders', { supplierId, lines: [{ partId: a, quantity: 100, unitPriceMinor: 1000 }] }, 201);
+    await post(buyer, shopId, `/orders/${draft.id}/request-approval`, {});
+    await post(owner, shopId, `/orders/${draft.id}/approve`, {});
+    const res = await buyer.patch(`/api/shops/${shopId}/purchasing/orders/${draft.id}`).set(csrf).send({ lines: [{ partId: b, quantity: 3, unitPriceMinor: 1250, coreDepositMinor: 500 }], note: 'Only the gaskets.' });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    // 3 × (12.50 + 5.00) = 52.50; the approval was for another order, so it is a draft again.
+    expect(res.body).toMatchObject({ status: 'draft', totalMinor: 5250, totalShopMinor: 5250, note: 'Only the gaskets.', approvedAt: null });
+    expect(res.body.lines.map((l: { partNumber: string; quantity: number }) => [l.partNumber, l.quantity])).toEqual([['ED-2', 3]]);
+    await post(buyer, shopId, `/orders/${draft.id}/send`, {});
+    const late = await buyer.patch(`/api/shops/${shopId}/purchasing/orders/${draft.id}`).set(csrf).send({ lines: [{ partId: a, quantity: 1, unitPriceMinor: 1 }] });
+    expect(late.status).toBe(409);
+    expect(late.body.error.details.reason).toBe('wrong_status');
+  });
 });
 
 describe('another shop', () => {

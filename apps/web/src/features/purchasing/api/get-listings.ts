@@ -13,5 +13,5 @@ export function listingsQueryOptions(shopId: string, supplierId: string) {
 }
 
 export function useListings(shopId: string, supplierId: string) {
-  return useQuery(listingsQueryOptions(shopId, supplierId));
+  return useQuery({ ...listingsQueryOptions(shopId, supplierId), enabled: supplierId !== '' });
 }

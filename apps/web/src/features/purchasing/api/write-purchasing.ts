@@ -3,6 +3,7 @@ import {
   listingSchema,
   type Listing,
   ordersFromReorderResponseSchema,
+  partPurchasingResponseSchema,
   purchaseOrderSchema,
   sendOrderResponseSchema,
   supplierReturnSchema,
@@ -14,7 +15,7 @@ import {
 } from '@tappet/contracts';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
-import { api } from '../../../lib/api-client';
+import { api, apiRequest } from '../../../lib/api-client';
 import { shopQueryKey } from '../../../lib/query-client';
 import { purchasingApi, purchasingKey } from './keys';
 
@@ -24,7 +25,16 @@ import { purchasingApi, purchasingKey } from './keys';
 const order = (shopId: string, orderId: string) => `${purchasingApi(shopId)}/orders/${encodeURIComponent(orderId)}`;
 
 export const createSupplier = (shopId: string, input: Record<string, unknown>) => api.post<Supplier>(`${purchasingApi(shopId)}/suppliers`, input, { schema: supplierSchema });
-export const draftFromReorder = (shopId: string, partIds: string[]) => api.post<z.infer<typeof ordersFromReorderResponseSchema>>(`${purchasingApi(shopId)}/orders/from-reorder`, { partIds }, { schema: ordersFromReorderResponseSchema });
+export const draftFromReorder = (shopId: string, input: { partIds: string[]; specialOrderIds: string[] }) =>
+  api.post<z.infer<typeof ordersFromReorderResponseSchema>>(`${purchasingApi(shopId)}/orders/from-reorder`, input, { schema: ordersFromReorderResponseSchema });
+export const updateSupplier = (shopId: string, input: { supplierId: string; body: Record<string, unknown> }) =>
+  api.patch<Supplier>(`${purchasingApi(shopId)}/suppliers/${encodeURIComponent(input.supplierId)}`, input.body, { schema: supplierSchema });
+export const updateListing = (shopId: string, input: { listingId: string; body: Record<string, unknown> }) =>
+  api.patch<Listing>(`${purchasingApi(shopId)}/listings/${encodeURIComponent(input.listingId)}`, input.body, { schema: listingSchema });
+export const deleteListing = (shopId: string, listingId: string) => api.delete<void>(`${purchasingApi(shopId)}/listings/${encodeURIComponent(listingId)}`);
+export const updateOrder = (shopId: string, input: { orderId: string; body: Record<string, unknown> }) => api.patch<PurchaseOrder>(order(shopId, input.orderId), input.body, { schema: purchaseOrderSchema });
+export const setPartPurchasing = (shopId: string, input: { partId: string; body: { preferredSupplierId: string | null; minQty: number | null; maxQty: number | null } }) =>
+  apiRequest<z.infer<typeof partPurchasingResponseSchema>>(`${purchasingApi(shopId)}/parts/${encodeURIComponent(input.partId)}`, { method: 'PUT', body: input.body, schema: partPurchasingResponseSchema });
 export const requestApproval = (shopId: string, orderId: string) => api.post<PurchaseOrder>(`${order(shopId, orderId)}/request-approval`, undefined, { schema: purchaseOrderSchema });
 export const approveOrder = (shopId: string, orderId: string) => api.post<PurchaseOrder>(`${order(shopId, orderId)}/approve`, undefined, { schema: purchaseOrderSchema });
 export const rejectOrder = (shopId: string, input: { orderId: string; reason: string }) => api.post<PurchaseOrder>(`${order(shopId, input.orderId)}/reject`, { reason: input.reason }, { schema: purchaseOrderSchema });

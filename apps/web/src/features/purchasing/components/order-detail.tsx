@@ -1,12 +1,31 @@
 import type { PurchaseOrder } from '@tappet/contracts';
-import { Button, ConfirmDialog, Dialog, ErrorState, FormDialogFooter, FormMessage, LoadingState, Num, PartNumber, Select, StatusPill, TextField, useToast } from '@tappet/ui';
-import { useId, useState, type FormEvent } from 'react';
+import { Button, CameraScanButton, ConfirmDialog, Dialog, ErrorState, FormDialogFooter, FormMessage, LoadingState, Num, PartNumber, Select, StatusPill, TextField, useToast } from '@tappet/ui';
+import { useId, useRef, useState, type FormEvent, type KeyboardEvent, type ReactNode } from 'react';
 import { useCan } from '../../../lib/ability';
+import { useSettings } from '../../../lib/shop-settings';
 import { errorMessage } from '../../../lib/api-client';
 import { useBins } from '../api/get-bins';
+import { useListings } from '../api/get-listings';
 import { orderPdfHref, useOrder } from '../api/get-order';
 import { approveOrder, cancelOrder, closeBackOrder, createReturn, receiveOrder, rejectOrder, requestApproval, sendOrder, usePurchasingMutation } from '../api/write-purchasing';
+import { OrderLinesDialog } from './order-lines-dialog';
 import { money, orderStatusWords } from './words';
+
+/** A number as scanners and people write it: upper case, without spaces, dashes, dots or slashes. */
+const squash = (s: string) => s.toUpperCase().replace(/[\s\-./]/g, '');
+
+/**
+ * The open line a scanned or typed code names: its part number or the supplier's number, compared
+ * without punctuation; a code that is a link is matched by its last path segment too.
+ */
+export function lineForCode<L extends { partNumber: string; supplierNumber: string | null }>(lines: L[], code: string): L | null {
+  const raw = code.trim();
+  if (!raw) return null;
+  const candidates = new Set([squash(raw)]);
+  const last = raw.split(/[/?#]/).filter(Boolean).at(-1);
+  if (last) candidates.add(squash(decodeURIComponent(last)));
+  return lines.find((l) => candidates.has(squash(l.partNumber)) || (l.supplierNumber !== null && candidates.has(squash(l.supplierNumber)))) ?? null;
+}
 
 type ReasonAction = 'reject' | 'cancel' | 'close';
 const reasonWords: Record<ReasonAction, { title: string; label: string; submit: string; hint: string }> = {
@@ -43,7 +62,28 @@ function ReceiveDialog({ shopId, order, onClose }: { shopId: string; order: Purc
   const receive = usePurchasingMutation(shopId, receiveOrder);
   const toast = useToast();
   const [error, setError] = useState<string | null>(null);
+  const [scanNote, setScanNote] = useState<string | null>(null);
+  const formRef = useRef<HTMLFormElement>(null);
   const open = order.lines.filter((l) => l.outstandingQuantity > 0);
+
+  /** A scanned (or typed) code picks its line: the quantity field is focused, ready to be checked. */
+  function pick(code: string) {
+    const line = lineForCode(open, code);
+    if (!line) return setScanNote(`Nothing outstanding on ${order.reference} matches ${code.trim()}.`);
+    setScanNote(`${line.partNumber}: ${line.outstandingQuantity} outstanding.`);
+    const field = formRef.current?.elements.namedItem(`qty-${line.id}`);
+    if (field instanceof HTMLInputElement) {
+      field.focus();
+      field.select();
+    }
+  }
+  function onScanKey(event: KeyboardEvent<HTMLInputElement>) {
+    if (event.key !== 'Enter') return;
+    // A scanner types the code and presses Enter: pick the line instead of submitting the form.
+    event.preventDefault();
+    pick(event.currentTarget.value);
+    event.currentTarget.value = '';
+  }
   const binOptions = (bins.data?.bins ?? []).filter((b) => b.active).map((b) => ({ value: b.id, label: b.code }));
 
   function onSubmit(event: FormEvent<HTMLFormElement>) {
@@ -79,8 +119,15 @@ function ReceiveDialog({ shopId, order, onClose }: { shopId: string; order: Purc
       ) : binOptions.length === 0 ? (
         <FormMessage>Add a bin under Stock → Bins first: goods need somewhere to go.</FormMessage>
       ) : (
-        <form id={formId} noValidate onSubmit={onSubmit} className="flex flex-col gap-4">
+        <form id={formId} ref={formRef} noValidate onSubmit={onSubmit} className="flex flex-col gap-4">
           {error && <FormMessage>{error}</FormMessage>}
+          <div className="flex flex-wrap items-end gap-3">
+            <TextField label="Scan or type a part number" name="scan" onKeyDown={onScanKey} autoComplete="off" className="font-mono" hint="Enter picks the line." fieldClassName="grow" />
+            <CameraScanButton onDetected={pick} label="Scan with camera" />
+          </div>
+          <p role="status" className="min-h-6 text-sm">
+            {scanNote}
+          </p>
           {open.map((l) => (
             <fieldset key={l.id} className="grid gap-2 border-b border-line pb-3 sm:grid-cols-2">
               <legend className="mb-1 font-bold">
@@ -146,9 +193,22 @@ function ReturnDialog({ shopId, order, line, onClose }: { shopId: string; order:
   );
 }
 
-/** A purchase order: its lines and receipts, and the actions its state and the person's role allow. */
-export function OrderDetail({ shopId, orderId }: { shopId: string; orderId: string }) {
+/** What arrived in the latest receipt, per part, for printing labels. */
+export interface ArrivedPart {
+  partId: string;
+  partNumber: string;
+  quantity: number;
+}
+
+/**
+ * A purchase order: its lines and receipts, and the actions its state and the person's role allow.
+ * `labelsAction` renders the label printing for what arrived last (the route composes it from the
+ * labels feature).
+ */
+export function OrderDetail({ shopId, orderId, labelsAction }: { shopId: string; orderId: string; labelsAction?: (arrived: ArrivedPart[]) => ReactNode }) {
   const order = useOrder(shopId, orderId);
+  const settings = useSettings(shopId);
+  const listings = useListings(shopId, order.data?.supplierId ?? '');
   const canUpdate = useCan('update', 'PurchaseOrder', { shopId });
   const canApprove = useCan('approve', 'PurchaseOrder', { shopId });
   const canReceive = useCan('receive', 'Stock', { shopId });
@@ -161,6 +221,7 @@ export function OrderDetail({ shopId, orderId }: { shopId: string; orderId: stri
   const [receiving, setReceiving] = useState(false);
   const [returning, setReturning] = useState<OrderLine | null>(null);
   const [confirmSend, setConfirmSend] = useState(false);
+  const [editingLines, setEditingLines] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
 
   if (order.isPending) return <LoadingState label="Loading the order…" />;
@@ -170,6 +231,16 @@ export function OrderDetail({ shopId, orderId }: { shopId: string; orderId: stri
   const foreign = o.currency !== o.shopCurrency;
   const fail = (e: unknown) => setProblem(errorMessage(e));
   const mayDirectSend = o.status === 'draft' && canSendTotal;
+  const editable = ['draft', 'awaiting_approval', 'approved'].includes(o.status);
+  const lastAt = o.receipts.at(-1)?.receivedAt;
+  const arrived: ArrivedPart[] = [];
+  for (const r of o.receipts.filter((x) => x.receivedAt === lastAt)) {
+    const line = o.lines.find((l) => l.id === r.lineId);
+    if (!line) continue;
+    const seen = arrived.find((a) => a.partId === line.partId);
+    if (seen) seen.quantity += r.quantity;
+    else arrived.push({ partId: line.partId, partNumber: line.partNumber, quantity: r.quantity });
+  }
 
   return (
     <div className="flex flex-col gap-6">
@@ -194,6 +265,11 @@ export function OrderDetail({ shopId, orderId }: { shopId: string; orderId: stri
           </Button>
         )}
         {(mayDirectSend || (canUpdate && o.status === 'approved')) && <Button onClick={() => setConfirmSend(true)}>Send to supplier</Button>}
+        {canUpdate && editable && (
+          <Button variant="secondary" onClick={() => setEditingLines(true)} disabled={listings.isPending}>
+            Change lines…
+          </Button>
+        )}
         {canApprove && o.status === 'awaiting_approval' && (
           <>
             <Button loading={approve.isPending} onClick={() => approve.mutate(o.id, { onError: fail })}>
@@ -236,6 +312,7 @@ export function OrderDetail({ shopId, orderId }: { shopId: string; orderId: stri
               <tr key={l.id} className="border-b border-line">
                 <td className="p-2">
                   <PartNumber>{l.partNumber}</PartNumber> <span className="text-ink-muted">{l.description}</span>
+                  {l.purpose && <div className="text-sm font-bold">{l.purpose}</div>}
                   {l.coreDepositMinor > 0 && <div className="text-sm">Core deposit {money(l.coreDepositMinor, o.currency)} a unit</div>}
                   {canUpdate && l.receivedQuantity > 0 && (
                     <div className="mt-1">
@@ -285,7 +362,10 @@ export function OrderDetail({ shopId, orderId }: { shopId: string; orderId: stri
 
       {o.receipts.length > 0 && (
         <section>
-          <h2 className="mb-2 text-lg font-bold">Received</h2>
+          <div className="mb-2 flex flex-wrap items-center justify-between gap-3">
+            <h2 className="text-lg font-bold">Received</h2>
+            {labelsAction && arrived.length > 0 && labelsAction(arrived)}
+          </div>
           <ul className="flex flex-col gap-1">
             {o.receipts.map((r) => {
               const line = o.lines.find((l) => l.id === r.lineId);
@@ -299,6 +379,16 @@ export function OrderDetail({ shopId, orderId }: { shopId: string; orderId: stri
         </section>
       )}
 
+      {editingLines && (
+        <OrderLinesDialog
+          shopId={shopId}
+          supplier={{ id: o.supplierId, name: o.supplierName, currency: o.currency }}
+          shopCurrency={settings.data?.currency ?? o.shopCurrency}
+          listings={listings.data?.listings ?? []}
+          order={o}
+          onClose={() => setEditingLines(false)}
+        />
+      )}
       {reason && <ReasonDialog shopId={shopId} order={o} action={reason} onClose={() => setReason(null)} />}
       {receiving && <ReceiveDialog shopId={shopId} order={o} onClose={() => setReceiving(false)} />}
       {returning && <ReturnDialog shopId={shopId} order={o} line={returning} onClose={() => setReturning(null)} />}

@@ -1,4 +1,4 @@
-import type { ReorderListResponse, ReorderSuggestion } from '@tappet/contracts';
+import type { ReorderListResponse, ReorderSuggestion, SpecialOrderSuggestion } from '@tappet/contracts';
 import { Button, EmptyState, ErrorState, FormMessage, LoadingState, Num, PartNumber, useToast } from '@tappet/ui';
 import { useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
@@ -67,6 +67,7 @@ function Group({ shopId, group, suggestions, selected, toggle }: { shopId: strin
         {group.supplierId && (
           <p>
             Total <Num>{money(group.totalMinor, group.currency)}</Num>
+            {group.specialOrderIds.length > 0 && <span className="ml-1 text-ink-muted">(with {group.specialOrderIds.length} special order{group.specialOrderIds.length === 1 ? '' : 's'})</span>}
             {group.shortfallMinor > 0 ? (
               <span className="ml-2 font-bold text-advise">
                 {money(group.shortfallMinor, group.currency)} short of the {money(group.minOrderValueMinor, group.currency)} minimum order
@@ -148,12 +149,83 @@ function FragmentRow({ shopId, s, checked, toggle, open, setOpen }: { shopId: st
   );
 }
 
+/** Jobs' special orders waiting to be bought: bought for the job whatever the stock position, held for it on arrival. */
+function SpecialOrders({ shopId, rows, selected, toggle }: { shopId: string; rows: SpecialOrderSuggestion[]; selected: Set<string>; toggle: (id: string) => void }) {
+  return (
+    <section className="mb-8" aria-labelledby="special-orders-heading">
+      <h2 id="special-orders-heading" className="mb-1 text-lg font-bold">
+        Special orders for jobs
+      </h2>
+      <p className="mb-2 max-w-prose text-ink-muted">Parts a job needs that were not in stock. What arrives is held for the job.</p>
+      <div className="overflow-x-auto">
+        <table className="w-full border-collapse text-left">
+          <caption className="sr-only">Special orders for jobs</caption>
+          <thead>
+            <tr className="border-b-2 border-line">
+              <th scope="col" className="p-2">
+                <span className="sr-only">Choose</span>
+              </th>
+              <th scope="col" className="p-2">Part</th>
+              <th scope="col" className="p-2">For</th>
+              <th scope="col" className="p-2">Supplier</th>
+              <th scope="col" className="p-2 text-right">Needed</th>
+              <th scope="col" className="p-2 text-right">Order</th>
+              <th scope="col" className="p-2 text-right">Value</th>
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((r) => (
+              <tr key={r.specialOrderId} className="border-b border-line align-top">
+                <td className="p-2">
+                  <input
+                    type="checkbox"
+                    className="h-6 w-6 accent-accent"
+                    checked={selected.has(r.specialOrderId)}
+                    disabled={!r.supplierId}
+                    onChange={() => toggle(r.specialOrderId)}
+                    aria-label={`Order ${r.partNumber} for job ${r.jobNumber}`}
+                  />
+                </td>
+                <td className="p-2">
+                  <Link to={paths.shop.part.getHref(shopId, r.partId)} className="text-accent">
+                    <PartNumber>{r.partNumber}</PartNumber>
+                  </Link>
+                  <div className="text-sm text-ink-muted">{r.description}</div>
+                  {r.free > 0 && <div className="text-sm">{r.free} free in stock: you could hold those for the job instead</div>}
+                </td>
+                <td className="p-2">
+                  <Link to={paths.shop.job.getHref(shopId, r.jobId)} className="text-accent underline underline-offset-4">
+                    Job {r.jobNumber}
+                  </Link>
+                  <div className="text-sm text-ink-muted">asked {r.requestedAt.slice(0, 10)}</div>
+                </td>
+                <td className="p-2">{r.supplierName ?? 'No supplier lists it'}</td>
+                <td className="p-2 text-right">
+                  <Num>{r.needed}</Num>
+                </td>
+                <td className="p-2 text-right">
+                  <Num>{r.quantity}</Num>
+                  {r.quantity > r.needed && <div className="text-sm text-ink-muted">rounded up to the pack</div>}
+                </td>
+                <td className="p-2 text-right">
+                  <Num>{money(r.valueMinor, r.currency)}</Num>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </section>
+  );
+}
+
 /** The reorder list: suggestions grouped by supplier, each explaining itself; slow movers and dead stock below. */
 export function ReorderList({ shopId }: { shopId: string }) {
   const list = useReorderList(shopId);
   const canDraft = useCan('create', 'PurchaseOrder', { shopId });
   const canSet = useCan('update', 'Settings', { shopId });
   const [selected, setSelected] = useState<Set<string>>(new Set());
+  const [selectedSpecial, setSelectedSpecial] = useState<Set<string>>(new Set());
   const draft = usePurchasingMutation(shopId, draftFromReorder);
   const toast = useToast();
   const navigate = useNavigate();
@@ -162,19 +234,22 @@ export function ReorderList({ shopId }: { shopId: string }) {
   if (list.isPending) return <LoadingState label="Working out the reorder list…" />;
   if (list.isError) return <ErrorState message={errorMessage(list.error)} onRetry={() => void list.refetch()} />;
   const data = list.data;
-  const toggle = (id: string) =>
-    setSelected((old) => {
-      const next = new Set(old);
-      if (next.has(id)) next.delete(id);
-      else next.add(id);
-      return next;
-    });
+  const flip = (old: Set<string>, id: string) => {
+    const next = new Set(old);
+    if (next.has(id)) next.delete(id);
+    else next.add(id);
+    return next;
+  };
+  const toggle = (id: string) => setSelected((old) => flip(old, id));
+  const toggleSpecial = (id: string) => setSelectedSpecial((old) => flip(old, id));
+  const count = selected.size + selectedSpecial.size;
 
   function onDraft() {
     setProblem(null);
-    draft.mutate([...selected], {
+    draft.mutate({ partIds: [...selected], specialOrderIds: [...selectedSpecial] }, {
       onSuccess: (result) => {
         setSelected(new Set());
+        setSelectedSpecial(new Set());
         toast.show(`${result.orders.length} draft order${result.orders.length === 1 ? '' : 's'} written.`, 'ok');
         if (result.skipped.length) setProblem(result.skipped.map((s) => s.reason).join(' '));
         const first = result.orders[0];
@@ -192,23 +267,32 @@ export function ReorderList({ shopId }: { shopId: string }) {
       </p>
       {canSet && <ReorderSettings shopId={shopId} />}
       {problem && <FormMessage>{problem}</FormMessage>}
-      {data.suggestions.length === 0 ? (
-        <EmptyState title="Nothing to reorder">Every part with demand is above its reorder point, or already on order.</EmptyState>
+      {data.suggestions.length === 0 && data.specialOrders.length === 0 ? (
+        <EmptyState title="Nothing to reorder">Every part with demand is above its reorder point, or already on order, and no job is waiting for a special order.</EmptyState>
       ) : (
         <>
           {canDraft && (
             <div className="sticky top-16 z-10 mb-4 flex flex-wrap items-center gap-3 bg-ground py-2">
-              <Button onClick={onDraft} disabled={selected.size === 0} loading={draft.isPending}>
-                Draft orders for {selected.size} selected
+              <Button onClick={onDraft} disabled={count === 0} loading={draft.isPending}>
+                Draft orders for {count} selected
               </Button>
-              <Button variant="secondary" onClick={() => setSelected(new Set(data.suggestions.filter((s) => s.supplierId).map((s) => s.partId)))}>
+              <Button
+                variant="secondary"
+                onClick={() => {
+                  setSelected(new Set(data.suggestions.filter((s) => s.supplierId).map((s) => s.partId)));
+                  setSelectedSpecial(new Set(data.specialOrders.filter((s) => s.supplierId).map((s) => s.specialOrderId)));
+                }}
+              >
                 Select all with a supplier
               </Button>
             </div>
           )}
-          {data.groups.map((g) => (
-            <Group key={g.supplierId ?? 'none'} shopId={shopId} group={g} suggestions={data.suggestions.filter((s) => s.supplierId === g.supplierId)} selected={selected} toggle={toggle} />
-          ))}
+          {data.specialOrders.length > 0 && <SpecialOrders shopId={shopId} rows={data.specialOrders} selected={selectedSpecial} toggle={toggleSpecial} />}
+          {data.groups
+            .filter((g) => g.partIds.length > 0)
+            .map((g) => (
+              <Group key={g.supplierId ?? 'none'} shopId={shopId} group={g} suggestions={data.suggestions.filter((s) => s.supplierId === g.supplierId)} selected={selected} toggle={toggle} />
+            ))}
         </>
       )}
       <StockHealth title="Dead stock" rows={data.deadStock} currency={data.settings.currency} empty={`Nothing has sat unissued for ${data.settings.deadStockDays} days.`} />

@@ -1,46 +1,38 @@
 import type { Listing, Supplier } from '@tappet/contracts';
-import { Button, createColumnHelper, DataTable, Dialog, EmptyState, ErrorState, FormDialogFooter, FormMessage, LoadingState, Num, PartNumber, TextField, useToast } from '@tappet/ui';
+import { Button, ConfirmDialog, createColumnHelper, DataTable, Dialog, EmptyState, ErrorState, FormDialogFooter, FormMessage, LoadingState, Num, PartNumber, TextField, useToast } from '@tappet/ui';
 import { minorUnitExponent, parseMinorUnits } from '@tappet/domain';
 import { useId, useMemo, useState, type FormEvent } from 'react';
-import { useNavigate } from 'react-router-dom';
-import { paths } from '../../../config/paths';
 import { useCan } from '../../../lib/ability';
-import { ApiError, errorMessage } from '../../../lib/api-client';
+import { useSettings } from '../../../lib/shop-settings';
+import { errorMessage } from '../../../lib/api-client';
+import { partFor } from '../api/find-part';
 import { useListings } from '../api/get-listings';
 import { useSuppliers } from '../api/get-suppliers';
-import { resolveNumber } from '../api/resolve-number';
-import { createListing, createOrder, usePurchasingMutation } from '../api/write-purchasing';
+import { createListing, deleteListing, updateListing, usePurchasingMutation } from '../api/write-purchasing';
+import { OrderLinesDialog } from './order-lines-dialog';
+import { SupplierDialog } from './suppliers-list';
 import { money } from './words';
 
 const column = createColumnHelper<Listing>();
 
-/** The catalogue part a typed number names, or an error message for the field. */
-async function partFor(shopId: string, number: string): Promise<{ id: string } | string> {
-  if (!number.trim()) return 'Enter the part number.';
-  try {
-    const found = await resolveNumber(shopId, number.trim());
-    return found.part ? { id: found.part.id } : `No part numbered ${number.trim()} in the catalogue.`;
-  } catch (error) {
-    return error instanceof ApiError && error.status === 404 ? `No part numbered ${number.trim()} in the catalogue.` : errorMessage(error);
-  }
-}
-
-/** Adds a listing: which part, their number, price, pack size, minimum order, own lead time. */
-function ListingDialog({ shopId, supplier, onClose }: { shopId: string; supplier: Supplier; onClose: () => void }) {
+/** Adds a listing, or changes one: their number, price, pack size, minimum order, own lead time. */
+function ListingDialog({ shopId, supplier, listing, onClose }: { shopId: string; supplier: Supplier; listing?: Listing; onClose: () => void }) {
   const formId = useId();
   const create = usePurchasingMutation(shopId, createListing);
+  const update = usePurchasingMutation(shopId, updateListing);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const toast = useToast();
+  const exp = minorUnitExponent(supplier.currency);
   async function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const f = new FormData(event.currentTarget);
     const text = (k: string) => String(f.get(k) ?? '').trim();
     const next: Record<string, string> = {};
-    const part = await partFor(shopId, text('partNumber'));
+    const part = listing ? { id: listing.partId, number: listing.partNumber } : await partFor(shopId, text('partNumber'));
     if (typeof part === 'string') next['partNumber'] = part;
     let priceMinor = 0;
     try {
-      priceMinor = parseMinorUnits(text('price'), minorUnitExponent(supplier.currency));
+      priceMinor = parseMinorUnits(text('price'), exp);
     } catch {
       next['price'] = `Write the price in ${supplier.currency} like 12.50.`;
     }
@@ -48,62 +40,43 @@ function ListingDialog({ shopId, supplier, onClose }: { shopId: string; supplier
     if (!Number.isInteger(packSize) || packSize < 1) next['packSize'] = 'A pack holds a whole number, at least 1.';
     const minOrderQty = Number(text('minOrderQty') || '0');
     if (!Number.isInteger(minOrderQty) || minOrderQty < 0) next['minOrderQty'] = 'Use a whole number, 0 or more.';
+    const leadTimeDays = text('leadTimeDays') === '' ? null : Number(text('leadTimeDays'));
+    if (leadTimeDays !== null && (!Number.isInteger(leadTimeDays) || leadTimeDays < 0)) next['leadTimeDays'] = 'Use a whole number of days, or leave it blank for the supplier’s.';
     setErrors(next);
     if (Object.keys(next).length > 0 || typeof part === 'string') return;
-    create.mutate(
-      { supplierId: supplier.id, body: { partId: part.id, supplierNumber: text('supplierNumber') || null, priceMinor, packSize, minOrderQty } },
-      {
-        onSuccess: (l) => {
-          toast.show(`${supplier.name} now lists ${l.partNumber}.`, 'ok');
-          onClose();
-        },
-        onError: (e) => setErrors({ form: errorMessage(e) }),
+    const body = { supplierNumber: text('supplierNumber') || null, priceMinor, packSize, minOrderQty, leadTimeDays };
+    const done = {
+      onSuccess: (l: Listing) => {
+        toast.show(listing ? `Listing of ${l.partNumber} saved.` : `${supplier.name} now lists ${l.partNumber}.`, 'ok');
+        onClose();
       },
-    );
+      onError: (e: unknown) => setErrors({ form: errorMessage(e) }),
+    };
+    if (listing) update.mutate({ listingId: listing.id, body }, done);
+    else create.mutate({ supplierId: supplier.id, body: { partId: part.id, ...body } }, done);
   }
   return (
-    <Dialog open onClose={onClose} title={`Add a listing to ${supplier.name}`} footer={<FormDialogFooter formId={formId} submitLabel="Add listing" loading={create.isPending} onCancel={onClose} />}>
+    <Dialog
+      open
+      onClose={onClose}
+      title={listing ? `Change the listing of ${listing.partNumber}` : `Add a listing to ${supplier.name}`}
+      footer={<FormDialogFooter formId={formId} submitLabel={listing ? 'Save listing' : 'Add listing'} loading={create.isPending || update.isPending} onCancel={onClose} />}
+    >
       <form id={formId} noValidate onSubmit={(e) => void onSubmit(e)} className="flex flex-col gap-4">
         {errors['form'] && <FormMessage>{errors['form']}</FormMessage>}
-        <TextField label="Our part number" name="partNumber" error={errors['partNumber']} className="font-mono" autoComplete="off" />
-        <TextField label="Their number (optional)" name="supplierNumber" className="font-mono" autoComplete="off" />
-        <TextField label={`Price (${supplier.currency})`} name="price" inputMode="decimal" error={errors['price']} />
-        <TextField label="Pack size" name="packSize" inputMode="numeric" defaultValue="1" error={errors['packSize']} />
-        <TextField label="Minimum order quantity" name="minOrderQty" inputMode="numeric" defaultValue="0" error={errors['minOrderQty']} />
-      </form>
-    </Dialog>
-  );
-}
-
-/** Writes a draft order by hand: one line per listed part with a quantity. */
-function OrderDialog({ shopId, supplier, listings, onClose }: { shopId: string; supplier: Supplier; listings: Listing[]; onClose: () => void }) {
-  const formId = useId();
-  const create = usePurchasingMutation(shopId, createOrder);
-  const navigate = useNavigate();
-  const [error, setError] = useState<string | null>(null);
-  function onSubmit(event: FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const f = new FormData(event.currentTarget);
-    const lines: Array<{ partId: string; quantity: number }> = [];
-    for (const l of listings) {
-      const raw = String(f.get(`qty-${l.id}`) ?? '').trim();
-      if (!raw) continue;
-      const quantity = Number(raw);
-      if (!Number.isInteger(quantity) || quantity < 1) return setError(`${l.partNumber}: order a whole number, at least 1.`);
-      lines.push({ partId: l.partId, quantity });
-    }
-    if (lines.length === 0) return setError('Enter a quantity on at least one line.');
-    const rate = String(f.get('exchangeRate') ?? '').trim();
-    create.mutate({ supplierId: supplier.id, lines, ...(rate ? { exchangeRate: rate } : {}) }, { onSuccess: (o) => navigate(paths.shop.purchasingOrder.getHref(shopId, o.id)), onError: (e) => setError(errorMessage(e)) });
-  }
-  return (
-    <Dialog open onClose={onClose} title={`Write an order to ${supplier.name}`} description="At the listed prices; the order starts as a draft." footer={<FormDialogFooter formId={formId} submitLabel="Write draft" loading={create.isPending} onCancel={onClose} />}>
-      <form id={formId} noValidate onSubmit={onSubmit} className="flex flex-col gap-3">
-        {error && <FormMessage>{error}</FormMessage>}
-        {supplier.currency !== (listings[0]?.shopCurrency ?? supplier.currency) && <TextField label={`Exchange rate (shop currency per 1 ${supplier.currency})`} name="exchangeRate" inputMode="decimal" hint="As on the day, e.g. 0.8571." />}
-        {listings.slice(0, 40).map((l) => (
-          <TextField key={l.id} label={`Quantity of ${l.partNumber}${l.packSize > 1 ? ` (packs of ${l.packSize})` : ''}`} name={`qty-${l.id}`} inputMode="numeric" autoComplete="off" />
-        ))}
+        {!listing && <TextField label="Our part number" name="partNumber" error={errors['partNumber']} className="font-mono" autoComplete="off" />}
+        <TextField label="Their number (optional)" name="supplierNumber" defaultValue={listing?.supplierNumber ?? ''} className="font-mono" autoComplete="off" />
+        <TextField label={`Price (${supplier.currency})`} name="price" inputMode="decimal" defaultValue={listing ? (listing.priceMinor / 10 ** exp).toFixed(exp) : ''} error={errors['price']} />
+        <TextField label="Pack size" name="packSize" inputMode="numeric" defaultValue={String(listing?.packSize ?? 1)} error={errors['packSize']} />
+        <TextField label="Minimum order quantity" name="minOrderQty" inputMode="numeric" defaultValue={String(listing?.minOrderQty ?? 0)} error={errors['minOrderQty']} />
+        <TextField
+          label="Lead time for this part (days, optional)"
+          name="leadTimeDays"
+          inputMode="numeric"
+          defaultValue={listing?.leadTimeDays === null || listing?.leadTimeDays === undefined ? '' : String(listing.leadTimeDays)}
+          hint={`Blank: the supplier's ${supplier.leadTimeDays} days.`}
+          error={errors['leadTimeDays']}
+        />
       </form>
     </Dialog>
   );
@@ -115,7 +88,12 @@ export function SupplierDetail({ shopId, supplierId }: { shopId: string; supplie
   const listings = useListings(shopId, supplierId);
   const canUpdate = useCan('update', 'Supplier', { shopId });
   const canOrder = useCan('create', 'PurchaseOrder', { shopId });
-  const [dialog, setDialog] = useState<'listing' | 'order' | null>(null);
+  const [dialog, setDialog] = useState<'listing' | 'order' | 'supplier' | null>(null);
+  const [editing, setEditing] = useState<Listing | null>(null);
+  const [removing, setRemoving] = useState<Listing | null>(null);
+  const remove = usePurchasingMutation(shopId, deleteListing);
+  const settings = useSettings(shopId);
+  const toast = useToast();
   const supplier = suppliers.data?.suppliers.find((s) => s.id === supplierId);
   const columns = useMemo(
     () => [
@@ -131,8 +109,26 @@ export function SupplierDetail({ shopId, supplierId }: { shopId: string; supplie
         cell: (info) => (info.getValue() === null ? '—' : <Num>{`${money(info.getValue(), info.row.original.shopCurrency)} on ${info.row.original.lastPaidAt?.slice(0, 10) ?? ''}`}</Num>),
       }),
       column.accessor('preferred', { header: 'Preferred', cell: (info) => (info.getValue() ? 'Yes' : '') }),
+      ...(canUpdate
+        ? [
+            column.display({
+              id: 'actions',
+              header: () => <span className="sr-only">Actions</span>,
+              cell: (info) => (
+                <div className="flex gap-2">
+                  <Button size="sm" variant="secondary" aria-label={`Change the listing of ${info.row.original.partNumber}`} onClick={() => setEditing(info.row.original)}>
+                    Change
+                  </Button>
+                  <Button size="sm" variant="secondary" aria-label={`Remove the listing of ${info.row.original.partNumber}`} onClick={() => setRemoving(info.row.original)}>
+                    Remove
+                  </Button>
+                </div>
+              ),
+            }),
+          ]
+        : []),
     ],
-    [],
+    [canUpdate],
   );
   if (suppliers.isPending || listings.isPending) return <LoadingState label="Loading the supplier…" />;
   if (suppliers.isError) return <ErrorState message={errorMessage(suppliers.error)} onRetry={() => void suppliers.refetch()} />;
@@ -154,7 +150,12 @@ export function SupplierDetail({ shopId, supplierId }: { shopId: string; supplie
       </dl>
       <div className="mb-4 flex flex-wrap gap-3">
         {canUpdate && <Button onClick={() => setDialog('listing')}>Add a listing</Button>}
-        {canOrder && listings.data.listings.length > 0 && (
+        {canUpdate && (
+          <Button variant="secondary" onClick={() => setDialog('supplier')}>
+            Change supplier details
+          </Button>
+        )}
+        {canOrder && (
           <Button variant="secondary" onClick={() => setDialog('order')}>
             Write an order
           </Button>
@@ -166,7 +167,30 @@ export function SupplierDetail({ shopId, supplierId }: { shopId: string; supplie
         <DataTable caption={`Listings of ${supplier.name}`} columns={columns} data={listings.data.listings} filterLabel="Filter listings" getRowId={(l) => l.id} />
       )}
       {dialog === 'listing' && <ListingDialog shopId={shopId} supplier={supplier} onClose={() => setDialog(null)} />}
-      {dialog === 'order' && <OrderDialog shopId={shopId} supplier={supplier} listings={listings.data.listings} onClose={() => setDialog(null)} />}
+      {dialog === 'order' && <OrderLinesDialog shopId={shopId} supplier={supplier} shopCurrency={settings.data?.currency ?? listings.data.listings[0]?.shopCurrency ?? supplier.currency} listings={listings.data.listings} onClose={() => setDialog(null)} />}
+      {dialog === 'supplier' && <SupplierDialog shopId={shopId} supplier={supplier} onClose={() => setDialog(null)} />}
+      {editing && <ListingDialog shopId={shopId} supplier={supplier} listing={editing} onClose={() => setEditing(null)} />}
+      <ConfirmDialog
+        open={removing !== null}
+        title={`Remove the listing of ${removing?.partNumber ?? ''}?`}
+        message={`${supplier.name} will no longer be suggested for this part. Orders already written keep their lines.`}
+        confirmLabel="Remove listing"
+        loading={remove.isPending}
+        onCancel={() => setRemoving(null)}
+        onConfirm={() =>
+          removing &&
+          remove.mutate(removing.id, {
+            onSuccess: () => {
+              toast.show(`Listing of ${removing.partNumber} removed.`, 'ok');
+              setRemoving(null);
+            },
+            onError: (e) => {
+              setRemoving(null);
+              toast.show(errorMessage(e), 'fail');
+            },
+          })
+        }
+      />
     </>
   );
 }

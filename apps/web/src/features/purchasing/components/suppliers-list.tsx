@@ -1,4 +1,5 @@
 import { supplierInputSchema, type ListingImportResult, type Supplier } from '@tappet/contracts';
+import { minorUnitExponent } from '@tappet/domain';
 import { Button, createColumnHelper, DataTable, Dialog, EmptyState, ErrorState, FormDialogFooter, FormMessage, LoadingState, Num, TextField, useToast } from '@tappet/ui';
 import { parseMinorUnits } from '@tappet/domain';
 import { useId, useMemo, useRef, useState, type FormEvent } from 'react';
@@ -8,18 +9,19 @@ import { useCan } from '../../../lib/ability';
 import { errorMessage } from '../../../lib/api-client';
 import { formValues, useFormErrors } from '../../../lib/forms';
 import { useSuppliers } from '../api/get-suppliers';
-import { createSupplier, importListings, usePurchasingMutation } from '../api/write-purchasing';
+import { createSupplier, importListings, updateSupplier, usePurchasingMutation } from '../api/write-purchasing';
 import { money } from './words';
 
 const column = createColumnHelper<Supplier>();
 const fields = ['name', 'email', 'currency', 'leadTimeDays', 'leadTimeSdDays', 'minOrderValueMinor', 'notes'] as const;
 
-/** Adds a supplier: contact e-mail, currency, lead time and its spread, minimum order value. */
-function SupplierDialog({ shopId, onClose }: { shopId: string; onClose: () => void }) {
+/** Adds a supplier, or changes one: contact e-mail, currency, lead time and its spread, minimum order value. */
+export function SupplierDialog({ shopId, supplier, onClose }: { shopId: string; supplier?: Supplier; onClose: () => void }) {
   const formRef = useRef<HTMLFormElement>(null);
   const formId = useId();
   const errors = useFormErrors(formRef);
   const create = usePurchasingMutation(shopId, createSupplier);
+  const update = usePurchasingMutation(shopId, updateSupplier);
   const toast = useToast();
   function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -27,7 +29,7 @@ function SupplierDialog({ shopId, onClose }: { shopId: string; onClose: () => vo
     const currency = (v.currency ?? '').trim().toUpperCase();
     let minOrderValueMinor: number | undefined;
     try {
-      minOrderValueMinor = v.minOrderValue ? parseMinorUnits(v.minOrderValue) : 0;
+      minOrderValueMinor = v.minOrderValue ? parseMinorUnits(v.minOrderValue, minorUnitExponent(/^[A-Z]{3}$/.test(currency) ? currency : 'GBP')) : 0;
     } catch {
       minOrderValueMinor = Number.NaN;
     }
@@ -43,24 +45,48 @@ function SupplierDialog({ shopId, onClose }: { shopId: string; onClose: () => vo
     const parsed = supplierInputSchema.safeParse(body);
     if (!parsed.success) return errors.failValidation(parsed.error);
     errors.clear();
-    create.mutate(parsed.data, {
-      onSuccess: (s) => {
-        toast.show(`${s.name} added.`, 'ok');
+    const done = {
+      onSuccess: (s: Supplier) => {
+        toast.show(supplier ? `${s.name} saved.` : `${s.name} added.`, 'ok');
         onClose();
       },
-      onError: (error) => errors.failApi(error, fields),
-    });
+      onError: (error: unknown) => errors.failApi(error, fields),
+    };
+    if (supplier) update.mutate({ supplierId: supplier.id, body: parsed.data }, done);
+    else create.mutate(parsed.data, done);
   }
+  const exp = supplier ? minorUnitExponent(supplier.currency) : 2;
   return (
-    <Dialog open onClose={onClose} title="Add a supplier" description="Orders go to the e-mail address as a PDF." footer={<FormDialogFooter formId={formId} submitLabel="Add supplier" loading={create.isPending} onCancel={onClose} />}>
+    <Dialog
+      open
+      onClose={onClose}
+      title={supplier ? `Change ${supplier.name}` : 'Add a supplier'}
+      description="Orders go to the e-mail address as a PDF."
+      footer={<FormDialogFooter formId={formId} submitLabel={supplier ? 'Save supplier' : 'Add supplier'} loading={create.isPending || update.isPending} onCancel={onClose} />}
+    >
       <form id={formId} ref={formRef} noValidate onSubmit={onSubmit} className="flex flex-col gap-4">
         {errors.formError && <FormMessage>{errors.formError}</FormMessage>}
-        <TextField label="Name" name="name" error={errors.fieldErrors.name} autoComplete="off" />
-        <TextField label="Order e-mail" name="email" type="email" error={errors.fieldErrors.email} autoComplete="off" />
-        <TextField label="Currency" name="currency" defaultValue="GBP" hint="Three letters, e.g. GBP or EUR." error={errors.fieldErrors.currency} autoComplete="off" className="font-mono" />
-        <TextField label="Lead time (days)" name="leadTimeDays" inputMode="numeric" defaultValue="7" error={errors.fieldErrors.leadTimeDays} />
-        <TextField label="Lead time spread (days, optional)" name="leadTimeSdDays" inputMode="decimal" hint="Standard deviation, if you know it." error={errors.fieldErrors.leadTimeSdDays} />
-        <TextField label="Minimum order value" name="minOrderValue" inputMode="decimal" hint="In the supplier's currency, e.g. 150.00." error={errors.fieldErrors.minOrderValueMinor} />
+        <TextField label="Name" name="name" defaultValue={supplier?.name} error={errors.fieldErrors.name} autoComplete="off" />
+        <TextField label="Order e-mail" name="email" type="email" defaultValue={supplier?.email ?? ''} error={errors.fieldErrors.email} autoComplete="off" />
+        <TextField label="Currency" name="currency" defaultValue={supplier?.currency ?? 'GBP'} hint="Three letters, e.g. GBP or EUR." error={errors.fieldErrors.currency} autoComplete="off" className="font-mono" />
+        <TextField label="Lead time (days)" name="leadTimeDays" inputMode="numeric" defaultValue={String(supplier?.leadTimeDays ?? 7)} error={errors.fieldErrors.leadTimeDays} />
+        <TextField
+          label="Lead time spread (days, optional)"
+          name="leadTimeSdDays"
+          inputMode="decimal"
+          defaultValue={supplier?.leadTimeSdDays === null || supplier?.leadTimeSdDays === undefined ? '' : String(supplier.leadTimeSdDays)}
+          hint="Standard deviation, if you know it."
+          error={errors.fieldErrors.leadTimeSdDays}
+        />
+        <TextField
+          label="Minimum order value"
+          name="minOrderValue"
+          inputMode="decimal"
+          defaultValue={supplier ? (supplier.minOrderValueMinor / 10 ** exp).toFixed(exp) : ''}
+          hint="In the supplier's currency, e.g. 150.00."
+          error={errors.fieldErrors.minOrderValueMinor}
+        />
+        <TextField label="Notes (optional)" name="notes" defaultValue={supplier?.notes ?? ''} error={errors.fieldErrors.notes} autoComplete="off" />
       </form>
     </Dialog>
   );
