@@ -398,3 +398,36 @@ export const jobDetailSchema = jobSummarySchema.extend({
   moves: z.array(jobStatusSchema),
 });
 export type JobDetail = z.infer<typeof jobDetailSchema>;
+
+// ── A vehicle's cost and margin (shop stock) ─────────────────────────────────────────────────
+
+/** One job's cost on a vehicle: parts at the cost they left stock at, labour at the rate booked. */
+export const vehicleJobCostSchema = z.object({
+  jobId: idSchema,
+  number: z.number().int(),
+  title: z.string(),
+  status: jobStatusSchema,
+  partsMinor: z.number().int(),
+  labourMinor: z.number().int(),
+  totalMinor: z.number().int(),
+});
+export type VehicleJobCost = z.infer<typeof vehicleJobCostSchema>;
+
+/**
+ * What a vehicle has cost the shop: the acquisition cost (shop stock) plus every job on it, against
+ * the asking price. `marginMinor` is null unless both the asking price and the acquisition cost are
+ * known; `marginPercent` is the margin as a percentage of the asking price.
+ */
+export const vehicleCostsSchema = z.object({
+  vehicleId: idSchema,
+  kind: z.string(),
+  currency: z.string(),
+  acquisitionCostMinor: z.number().int().nullable(),
+  askingPriceMinor: z.number().int().nullable(),
+  jobs: z.array(vehicleJobCostSchema),
+  jobsMinor: z.number().int(),
+  totalCostMinor: z.number().int(),
+  marginMinor: z.number().int().nullable(),
+  marginPercent: z.number().nullable(),
+});
+export type VehicleCosts = z.infer<typeof vehicleCostsSchema>;

@@ -89,7 +89,7 @@ test('the owner opens a job and assigns a mechanic; the mechanic fills the recom
   await expect(tablet.getByRole('heading', { name: 'Safety-critical items' })).toBeVisible();
 
   // Hold a part for the job and issue it.
-  await tablet.getByLabel('Find a part in stock').fill(number);
+  await tablet.getByLabel('Find a part', { exact: true }).fill(number);
   await tablet.getByRole('button', { name: new RegExp(`Hold 1 × ${number}`) }).click();
   await tablet.getByRole('button', { name: new RegExp(`Issue 1 × ${number} to this job`) }).click();
   const issued = tablet.getByRole('table');

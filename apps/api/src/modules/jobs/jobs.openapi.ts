@@ -28,6 +28,8 @@ import {
   templateListResponseSchema,
   templateSchema,
   templateUpdateSchema,
+  vehicleCostsSchema,
+  vehicleIdParamsSchema,
 } from '@tappet/contracts';
 import type { RouteDoc } from '../../openapi/openapi';
 
@@ -42,6 +44,7 @@ export const jobRouteDocs: RouteDoc[] = [
   { method: 'get', path: base(''), summary: 'Jobs, newest first: the board, or one person’s (assignee=me); done and cancelled with closed=true', tag, auth: true, params: shopIdParamsSchema, query: jobListQuerySchema, response: jobListResponseSchema, errors: read },
   { method: 'post', path: base(''), summary: 'Open a job on a vehicle, assign people, optionally start checklists (owner)', tag, auth: true, params: shopIdParamsSchema, body: jobInputSchema, response: jobDetailSchema, status: 201, errors: write },
   { method: 'get', path: base('/{jobId}'), summary: 'A job with its checklists, sign-offs, blockers, parts, labour, photos and cost', tag, auth: true, params: jobIdParamsSchema, response: jobDetailSchema, errors: read },
+  { method: 'get', path: base('/{jobId}/sheet.pdf'), summary: 'The printable job sheet: vehicle, request, people, checklist results and readings, unresolved signed-off safety items, parts, labour, job cost and cautions', tag, auth: true, params: jobIdParamsSchema, response: binary, responseType: 'application/pdf', errors: read },
   { method: 'patch', path: base('/{jobId}'), summary: 'Change a job; changing who is assigned is the owner’s', tag, auth: true, params: jobIdParamsSchema, body: jobUpdateSchema, response: jobDetailSchema, errors: write },
   { method: 'post', path: base('/{jobId}/status'), summary: 'Move a job to another status; done is refused (409 safety_blockers) while a safety-critical item is failed or unrecorded and not signed off', tag, auth: true, params: jobIdParamsSchema, body: jobStatusMoveSchema, response: jobDetailSchema, errors: write },
   { method: 'post', path: base('/{jobId}/checklists'), summary: 'Start a checklist from a template (its items are copied)', tag, auth: true, params: jobIdParamsSchema, body: startChecklistSchema, response: jobDetailSchema, status: 201, errors: write },
@@ -70,6 +73,7 @@ export const jobRouteDocs: RouteDoc[] = [
   },
   { method: 'get', path: base('/{jobId}/files/{fileId}/content'), summary: 'A stored photo of the job', tag, auth: true, params: jobFileParamsSchema, response: binary, responseType: '*/*', errors: read },
   { method: 'get', path: base('/{jobId}/files/{fileId}/thumbnail'), summary: 'The thumbnail of a photo of the job', tag, auth: true, params: jobFileParamsSchema, response: binary, responseType: 'image/jpeg', errors: read },
+  { method: 'get', path: '/api/shops/{shopId}/vehicles/{vehicleId}/costs', summary: 'What a vehicle has cost the shop (acquisition + every job: parts at cost, labour) against its asking price, and the margin; not for mechanics', tag: 'vehicles', auth: true, params: vehicleIdParamsSchema, response: vehicleCostsSchema, errors: { 403: 'This role does not see costs and margins', ...read } },
   { method: 'get', path: '/api/shops/{shopId}/checklist-templates', summary: 'Checklist templates (a new shop starts with Tappet’s recommissioning and pre-sale templates)', tag, auth: true, params: shopIdParamsSchema, response: templateListResponseSchema, errors: read },
   { method: 'post', path: '/api/shops/{shopId}/checklist-templates', summary: 'Create a checklist template (owner)', tag, auth: true, params: shopIdParamsSchema, body: templateInputSchema, response: templateSchema, status: 201, errors: write },
   { method: 'patch', path: '/api/shops/{shopId}/checklist-templates/{templateId}', summary: 'Change or archive a template (checklists already started keep their items)', tag, auth: true, params: templateIdParamsSchema, body: templateUpdateSchema, response: templateSchema, errors: write },

@@ -70,6 +70,17 @@ export function jobsRouter(deps: { jobs: JobsService; uploadLimits?: UploadLimit
     res.json(await jobs.detail(shopId, jobId));
   });
 
+  router.get('/:jobId/sheet.pdf', validate({ params: jobIdParamsSchema }), async (req, res) => {
+    authorize(req, 'read', 'Job');
+    const { shopId, jobId } = ids(req);
+    const sheet = await jobs.sheet(shopId, jobId);
+    res.setHeader('Content-Type', 'application/pdf');
+    res.setHeader('Content-Disposition', contentDisposition('inline', sheet.fileName));
+    res.setHeader('X-Content-Type-Options', 'nosniff');
+    res.setHeader('Cache-Control', 'private, no-store');
+    res.send(sheet.content);
+  });
+
   router.patch('/:jobId', validate({ params: jobIdParamsSchema, body: jobUpdateSchema }), async (req, res) => {
     await authorizeOnJob(req, 'update');
     const body = bodyOf(jobUpdateSchema, req);

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { In, type EntityManager } from 'typeorm';
 import type { z } from 'zod';
-import { builtInTemplates, handOverBlockers } from '@tappet/domain';
+import { builtInTemplates, handOverBlockers, type PressureUnit } from '@tappet/domain';
 import {
   defaultShopSettings,
   jobStatusMoves,
@@ -17,6 +17,7 @@ import {
   type LabourEntry,
   type SignOff,
   type SpecialOrder,
+  type VehicleCosts,
   type jobHoldInputSchema,
   type jobInputSchema,
   type jobIssueInputSchema,
@@ -37,7 +38,7 @@ import { HttpError, notFound } from '../../lib/http-error';
 import { diffChanges, recordAudit, type AuditActor } from '../audit/audit.service';
 import { PartEntity } from '../catalogue/catalogue.entity';
 import { ShopSettingsEntity } from '../settings/settings.entity';
-import { MembershipEntity } from '../shops/shops.entity';
+import { MembershipEntity, ShopEntity } from '../shops/shops.entity';
 import { HoldEntity, MovementEntity } from '../stock/stock.entity';
 import { listHolds } from '../stock/stock.queries';
 import { holdStock, issueStock, releaseHold, returnStock, type StockWriteContext } from '../stock/stock.service';
@@ -46,6 +47,7 @@ import type { PreparedUpload } from '../uploads/upload-pipeline';
 import { UserEntity } from '../users/users.entity';
 import { VehicleEntity } from '../vehicles/vehicles.entity';
 import { checkItemRecord, spreadOf, type RecordItem } from './checklist-rules';
+import { renderJobSheetPdf } from './job-sheet-pdf';
 import {
   ChecklistItemRecordEntity,
   ChecklistSignOffEntity,
@@ -412,6 +414,16 @@ export function createJobsService(deps: { db: Database; clock: Clock; files: Fil
 
     detail,
 
+    /** The printable job sheet (PDF), compression in the shop's pressure unit. */
+    async sheet(shopId: string, jobId: string): Promise<{ fileName: string; content: Buffer }> {
+      const job = await detail(shopId, jobId);
+      const shop = await db.reader.findOne(ShopEntity, { where: { id: shopId } });
+      const settings = await db.reader.findOne(ShopSettingsEntity, { where: { shopId } });
+      const pressureUnit = (settings?.pressureUnit ?? defaultShopSettings.pressureUnit) as PressureUnit;
+      const content = await renderJobSheetPdf({ job, shopName: shop?.name ?? '', pressureUnit, printedAt: clock.now() });
+      return { fileName: `job-${job.number}.pdf`, content };
+    },
+
     async create(shopId: string, input: JobCreate, actor: AuditActor): Promise<JobDetail> {
       const id = randomUUID();
       await db.write(async (manager) => {
@@ -765,6 +777,48 @@ export function createJobsService(deps: { db: Database; clock: Clock; files: Fil
       });
       return toTemplate(await shopScoped(db.reader, ChecklistTemplateEntity, shopId).findOneOr404({ id: templateId }));
     },
+  };
+}
+
+/**
+ * What a vehicle has cost the shop: the cost of every job on it (parts at the cost they left stock
+ * at, net of returns; labour at the rate each entry was booked at, rounded per entry as on the
+ * job) plus, for shop stock, the acquisition cost; and the margin against the asking price. The
+ * caller has looked the vehicle up within the shop.
+ */
+export async function vehicleCosts(reader: EntityManager, shopId: string, vehicle: { id: string; kind: string; acquisitionCostMinor: number | null; askingPriceMinor: number | null }): Promise<VehicleCosts> {
+  const jobs = await reader.find(JobEntity, { where: { shopId, vehicleId: vehicle.id }, order: { number: 'ASC' } });
+  const jobIds = jobs.map((j) => j.id);
+  const parts = new Map<string, number>();
+  const labour = new Map<string, number>();
+  if (jobIds.length) {
+    const moved = await reader.find(MovementEntity, { where: { shopId, jobId: In(jobIds), kind: In(['issued', 'returned']) }, select: { jobId: true, valueChangeMinor: true } });
+    for (const m of moved) if (m.jobId) parts.set(m.jobId, (parts.get(m.jobId) ?? 0) - m.valueChangeMinor);
+    const entries = await reader.find(LabourEntryEntity, { where: { shopId, jobId: In(jobIds) }, select: { jobId: true, minutes: true, rateMinorPerHour: true } });
+    for (const l of entries) labour.set(l.jobId, (labour.get(l.jobId) ?? 0) + Math.round((l.minutes * l.rateMinorPerHour) / 60));
+  }
+  const perJob = jobs.map((j) => {
+    const partsMinor = parts.get(j.id) ?? 0;
+    const labourMinor = labour.get(j.id) ?? 0;
+    return { jobId: j.id, number: j.number, title: j.title, status: j.status, partsMinor, labourMinor, totalMinor: partsMinor + labourMinor };
+  });
+  const settings = await reader.findOne(ShopSettingsEntity, { where: { shopId } });
+  const jobsMinor = perJob.reduce((n, j) => n + j.totalMinor, 0);
+  const acquisition = vehicle.kind === 'shop_stock' ? vehicle.acquisitionCostMinor : null;
+  const totalCostMinor = (acquisition ?? 0) + jobsMinor;
+  const asking = vehicle.askingPriceMinor;
+  const marginMinor = asking !== null && acquisition !== null ? asking - totalCostMinor : null;
+  return {
+    vehicleId: vehicle.id,
+    kind: vehicle.kind,
+    currency: settings?.currency ?? defaultShopSettings.currency,
+    acquisitionCostMinor: acquisition,
+    askingPriceMinor: asking,
+    jobs: perJob,
+    jobsMinor,
+    totalCostMinor,
+    marginMinor,
+    marginPercent: marginMinor !== null && asking ? Math.round((marginMinor / asking) * 1000) / 10 : null,
   };
 }
 

@@ -13,6 +13,7 @@ import {
   vehicleUpdateSchema,
 } from '@tappet/contracts';
 import { subjectOf } from '@tappet/permissions';
+import { forbidden } from '../../lib/http-error';
 import { auditActorOf } from '../../middleware/authenticate';
 import { authorize, shopOf } from '../../middleware/tenant-context';
 import { bodyOf, validate } from '../../middleware/validate';
@@ -21,6 +22,15 @@ import { prepareUpload, type PreparedUpload } from '../uploads/upload-pipeline';
 import type { FieldPermission, VehicleListQuery, VehiclesService } from './vehicles.service';
 
 const params = (req: Request) => ({ shopId: shopOf(req).shop.id, vehicleId: req.params['vehicleId'] as string });
+
+/**
+ * What a vehicle cost the shop is hidden from roles whose ability may not read it (mechanics,
+ * issue 10): the field is answered as null, as for a vehicle with none recorded.
+ */
+function masked<T extends { acquisitionCostMinor: number | null }>(req: Request, vehicle: T): T {
+  const { shop, ability } = shopOf(req);
+  return ability.can('read', subjectOf('Vehicle', { shopId: shop.id }), 'acquisitionCostMinor') ? vehicle : { ...vehicle, acquisitionCostMinor: null };
+}
 
 /** The field-level rule of the caller's ability: may they change this money field of a vehicle? */
 const fieldPermission =
@@ -51,30 +61,43 @@ export function vehiclesRouter(deps: { vehicles: VehiclesService; uploadLimits?:
 
   router.get('/', validate({ params: shopIdParamsSchema, query: vehicleListQuerySchema }), async (req, res) => {
     authorize(req, 'read', 'Vehicle');
-    res.json(await vehicles.list(shopOf(req).shop.id, req.query as unknown as VehicleListQuery));
+    const list = await vehicles.list(shopOf(req).shop.id, req.query as unknown as VehicleListQuery);
+    res.json({ ...list, items: list.items.map((v) => masked(req, v)) });
   });
 
   router.post('/', validate({ params: shopIdParamsSchema, body: vehicleInputSchema }), async (req, res) => {
     authorize(req, 'create', 'Vehicle');
-    res.status(201).json(await vehicles.create(shopOf(req).shop.id, bodyOf(vehicleInputSchema, req), auditActorOf(req), fieldPermission(req)));
+    res.status(201).json(masked(req, await vehicles.create(shopOf(req).shop.id, bodyOf(vehicleInputSchema, req), auditActorOf(req), fieldPermission(req))));
   });
 
   router.get('/:vehicleId', validate({ params: vehicleIdParamsSchema }), async (req, res) => {
     authorize(req, 'read', 'Vehicle');
     const { shopId, vehicleId } = params(req);
-    res.json(await vehicles.detail(shopId, vehicleId));
+    res.json(masked(req, await vehicles.detail(shopId, vehicleId)));
+  });
+
+  // What the vehicle has cost and its margin: not for roles that may not read the margin (mechanics).
+  router.get('/:vehicleId/costs', validate({ params: vehicleIdParamsSchema }), async (req, res) => {
+    authorize(req, 'read', 'Vehicle');
+    const { shopId, vehicleId } = params(req);
+    const { shop, ability } = shopOf(req);
+    if (!ability.can('read', subjectOf('Vehicle', { shopId: shop.id }), 'margin')) {
+      await vehicles.detail(shopId, vehicleId); // another shop's id stays a 404, not a 403
+      throw forbidden('Only the owner sees what a vehicle cost the shop and its margin.');
+    }
+    res.json(await vehicles.costs(shopId, vehicleId));
   });
 
   router.patch('/:vehicleId', validate({ params: vehicleIdParamsSchema, body: vehicleUpdateSchema }), async (req, res) => {
     authorize(req, 'update', 'Vehicle');
     const { shopId, vehicleId } = params(req);
-    res.json(await vehicles.update(shopId, vehicleId, bodyOf(vehicleUpdateSchema, req), auditActorOf(req), fieldPermission(req)));
+    res.json(masked(req, await vehicles.update(shopId, vehicleId, bodyOf(vehicleUpdateSchema, req), auditActorOf(req), fieldPermission(req))));
   });
 
   router.post('/:vehicleId/status', validate({ params: vehicleIdParamsSchema, body: statusMoveInputSchema }), async (req, res) => {
     authorize(req, 'update', 'Vehicle');
     const { shopId, vehicleId } = params(req);
-    res.json(await vehicles.moveStatus(shopId, vehicleId, bodyOf(statusMoveInputSchema, req), auditActorOf(req)));
+    res.json(masked(req, await vehicles.moveStatus(shopId, vehicleId, bodyOf(statusMoveInputSchema, req), auditActorOf(req))));
   });
 
   router.post('/:vehicleId/odometer-readings', validate({ params: vehicleIdParamsSchema, body: odometerInputSchema }), async (req, res) => {
@@ -86,7 +109,7 @@ export function vehiclesRouter(deps: { vehicles: VehiclesService; uploadLimits?:
   router.post('/:vehicleId/numbers-check', validate({ params: vehicleIdParamsSchema, body: numbersCheckInputSchema }), async (req, res) => {
     authorize(req, 'update', 'Vehicle');
     const { shopId, vehicleId } = params(req);
-    res.json(await vehicles.recordNumbersCheck(shopId, vehicleId, bodyOf(numbersCheckInputSchema, req), auditActorOf(req)));
+    res.json(masked(req, await vehicles.recordNumbersCheck(shopId, vehicleId, bodyOf(numbersCheckInputSchema, req), auditActorOf(req))));
   });
 
   router.get('/:vehicleId/timeline', validate({ params: vehicleIdParamsSchema }), async (req, res) => {

@@ -26,7 +26,7 @@ import {
 } from '@tappet/contracts';
 import { shopScoped } from '../../db/tenant-repository';
 import { assertVehicleRoom } from '../billing/plan-limits';
-import { jobTimelineEntries, vehicleHandOverBlockers } from '../jobs/jobs.service';
+import { jobTimelineEntries, vehicleCosts, vehicleHandOverBlockers } from '../jobs/jobs.service';
 import type { Database } from '../../db/write-lock';
 import type { Clock } from '../../lib/clock';
 import { HttpError, badRequest, forbidden, notFound } from '../../lib/http-error';
@@ -271,6 +271,11 @@ export function createVehiclesService(deps: { db: Database; clock: Clock; files:
 
   return {
     detail,
+
+    /** The vehicle's total cost (acquisition + all its jobs) against its asking price (issue 10). */
+    async costs(shopId: string, vehicleId: string) {
+      return vehicleCosts(db.reader, shopId, await vehicleRow(db.reader, shopId, vehicleId));
+    },
 
     /** A page of the shop's vehicles, filtered by kind, status, marque, a customer or a search word. */
     async list(shopId: string, query: VehicleListQuery): Promise<VehicleListResponse> {

@@ -21,3 +21,8 @@ export function useJob(shopId: string, jobId: string) {
 export function jobFileHref(shopId: string, jobId: string, fileId: string, variant: 'content' | 'thumbnail' = 'thumbnail'): string {
   return `/api${jobsApi(shopId)}/${encodeURIComponent(jobId)}/files/${encodeURIComponent(fileId)}/${variant}`;
 }
+
+/** The URL of the job's printable sheet (PDF). */
+export function jobSheetHref(shopId: string, jobId: string): string {
+  return `/api${jobsApi(shopId)}/${encodeURIComponent(jobId)}/sheet.pdf`;
+}

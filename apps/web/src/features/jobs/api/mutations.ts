@@ -1,6 +1,8 @@
 import {
   jobDetailSchema,
+  jobFilesResponseSchema,
   type JobDetail,
+  type JobFile,
   type JobHoldInput,
   type JobInput,
   type JobIssueInput,
@@ -93,4 +95,19 @@ export function useAddLabour(shopId: string, jobId: string) {
 
 export function useRemoveLabour(shopId: string, jobId: string) {
   return useJobWrite(shopId, jobId, (entryId: string) => api.delete(`${one(shopId, jobId)}/labour/${encodeURIComponent(entryId)}`, { schema: jobDetailSchema }));
+}
+
+/** POST …/files (multipart): photos of the job, re-encoded by the API; answers with the new files. */
+export function useUploadJobPhotos(shopId: string, jobId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: async ({ files, caption }: { files: File[]; caption?: string }): Promise<JobFile[]> => {
+      const form = new FormData();
+      if (caption) form.append('caption', caption);
+      for (const file of files) form.append('files', file, file.name);
+      const res = await api.post(`${one(shopId, jobId)}/files`, form, { schema: jobFilesResponseSchema });
+      return res.files;
+    },
+    onSuccess: () => void queryClient.invalidateQueries({ queryKey: shopQueryKey(shopId, 'jobs', 'detail', jobId) }),
+  });
 }

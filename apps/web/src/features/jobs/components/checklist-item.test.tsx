@@ -43,7 +43,7 @@ describe('ChecklistItemCard', () => {
     await userEvent.type(screen.getByLabelText('Cylinder 3'), '9.4');
     await userEvent.click(screen.getByLabelText('OK', { exact: true }));
     await userEvent.click(screen.getByRole('button', { name: 'Save' }));
-    expect(onSave).toHaveBeenCalledWith({ result: 'ok', note: null, compression: { unit: 'bar', readings: [9.5, 9.2, 9.4] } });
+    expect(onSave).toHaveBeenCalledWith({ result: 'ok', note: null, photoFileId: null, compression: { unit: 'bar', readings: [9.5, 9.2, 9.4] } });
   });
 
   it('asks for a result before saving, and shows the brake-fluid caution on a brake item', async () => {
@@ -55,6 +55,22 @@ describe('ChecklistItemCard', () => {
     await userEvent.click(screen.getByRole('button', { name: 'Save' }));
     expect(screen.getByText(/Choose a result/)).toBeInTheDocument();
     expect(onSave).not.toHaveBeenCalled();
+  });
+
+  it('attaches one of the job’s photos to the item and shows it once recorded', async () => {
+    const onSave = vi.fn<(input: RecordItemInput) => Promise<void>>().mockResolvedValue(undefined);
+    const photos = [
+      { id: '00000000-0000-4000-8000-0000000000f1', label: 'Seized caliper', thumbnailHref: '/t1', href: '/c1' },
+      { id: '00000000-0000-4000-8000-0000000000f2', label: 'Leaking hose', thumbnailHref: '/t2', href: '/c2' },
+    ];
+    const { rerender } = render(<ChecklistItemCard item={item('brake-hydraulics')} record={undefined} signedOff={false} editable pressureUnit="psi" saving={false} onSave={onSave} photos={photos} />);
+    await userEvent.click(screen.getByRole('button', { name: /Record: Calipers/ }));
+    await userEvent.click(screen.getByLabelText('Fail', { exact: true }));
+    await userEvent.selectOptions(screen.getByLabelText('Photo of this item'), 'Leaking hose');
+    await userEvent.click(screen.getByRole('button', { name: 'Save' }));
+    expect(onSave).toHaveBeenCalledWith({ result: 'fail', note: null, photoFileId: photos[1]!.id });
+    rerender(<ChecklistItemCard item={item('brake-hydraulics')} record={record({ result: 'fail', photoFileId: photos[1]!.id })} signedOff={false} editable pressureUnit="psi" saving={false} onSave={onSave} photos={photos} />);
+    expect(screen.getByRole('link', { name: 'Photo of this item: Leaking hose' })).toHaveAttribute('href', '/c2');
   });
 
   it('shows a signed-off failed item as unresolved and offers no form to a reader', () => {

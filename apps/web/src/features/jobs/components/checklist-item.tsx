@@ -35,6 +35,7 @@ export function ChecklistItemCard({
   pressureUnit,
   saving,
   onSave,
+  photos = [],
 }: {
   item: Item;
   record: ItemRecord | undefined;
@@ -43,6 +44,8 @@ export function ChecklistItemCard({
   pressureUnit: PressureUnit;
   saving: boolean;
   onSave: (input: RecordItemInput) => Promise<void>;
+  /** The job's photos, to attach one to the item (none: no choice offered). */
+  photos?: Array<{ id: string; label: string; thumbnailHref: string; href: string }>;
 }) {
   const [open, setOpen] = useState(false);
   const [result, setResult] = useState<ChecklistItemResult | null>(record?.result ?? null);
@@ -50,8 +53,10 @@ export function ChecklistItemCard({
   const [value, setValue] = useState(record?.value !== null && record?.value !== undefined ? String(record.value) : '');
   const [readings, setReadings] = useState<string[]>(record?.compressionKPa ? record.compressionKPa.map((v) => String(Number(compressionForDisplay(v, pressureUnit).toFixed(1)))) : ['', '']);
   const [tyres, setTyres] = useState(record?.tyres ? record.tyres.map((t) => ({ position: t.position, code: t.code })) : [{ position: 'Front', code: '' }, { position: 'Rear', code: '' }]);
+  const [photoId, setPhotoId] = useState(record?.photoFileId ?? '');
   const [error, setError] = useState<string | null>(null);
   const headingId = useId();
+  const photo = record?.photoFileId ? photos.find((p) => p.id === record.photoFileId) : undefined;
 
   const save = async () => {
     if (!result) {
@@ -59,7 +64,7 @@ export function ChecklistItemCard({
       return;
     }
     const na = result === 'na';
-    const input: RecordItemInput = { result, note: note.trim() || null };
+    const input: RecordItemInput = { result, note: note.trim() || null, photoFileId: photoId || null };
     if (!na && item.kind === 'measure') input.value = value.trim() === '' ? null : Number(value);
     if (!na && item.kind === 'compression') input.compression = { unit: pressureUnit, readings: readings.filter((r) => r.trim() !== '').map(Number) };
     if (!na && item.kind === 'tyre_date') input.tyres = tyres.filter((t) => t.code.trim() !== '');
@@ -89,6 +94,11 @@ export function ChecklistItemCard({
               <span className="text-sm">{recordSummary(item, record, pressureUnit)}</span>
               {record.note && <span className="text-sm text-ink-muted">“{record.note}”</span>}
               {record.recordedBy && <span className="text-sm text-ink-muted">— {record.recordedBy.name}, {new Date(record.recordedAt).toLocaleString('en-GB')}</span>}
+              {photo && (
+                <a href={photo.href} target="_blank" rel="noreferrer" aria-label={`Photo of this item: ${photo.label}`}>
+                  <img src={photo.thumbnailHref} alt={photo.label} className="h-12 rounded-sm border border-line object-cover" />
+                </a>
+              )}
             </div>
           )}
           {!record && <p className="mt-2 text-sm text-ink-muted">Not recorded yet.</p>}
@@ -166,6 +176,19 @@ export function ChecklistItemCard({
                 Add tyre
               </Button>
             </fieldset>
+          )}
+          {photos.length > 0 && (
+            <label className="flex flex-col gap-1">
+              <span className="font-bold">Photo of this item</span>
+              <select className={inputClasses(false)} value={photoId} onChange={(e) => setPhotoId(e.target.value)}>
+                <option value="">None</option>
+                {photos.map((p) => (
+                  <option key={p.id} value={p.id}>
+                    {p.label}
+                  </option>
+                ))}
+              </select>
+            </label>
           )}
           <label className="flex flex-col gap-1">
             <span className="font-bold">Note</span>

@@ -1,26 +1,29 @@
-import { jobStatusWords, stockConditionLabels, type Checklist, type JobDetail, type JobStatus } from '@tappet/contracts';
+import { jobStatusWords, type Checklist, type JobDetail, type JobStatus } from '@tappet/contracts';
 import { safetyDeferral, type PressureUnit } from '@tappet/domain';
-import { Button, Caution, Dialog, FormDialogFooter, FormMessage, PartNumber, Select, TextField, useToast, inputClasses } from '@tappet/ui';
+import { Button, buttonClasses, Caution, ConfirmDialog, Dialog, FormDialogFooter, FormMessage, PartNumber, Select, TextField, useToast, inputClasses } from '@tappet/ui';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { errorMessage } from '../../../lib/api-client';
-import { useFindStock } from '../api/find-stock';
-import { jobFileHref } from '../api/get-job';
+import { jobFileHref, jobSheetHref } from '../api/get-job';
 import { useTemplates } from '../api/get-templates';
 import {
   useAddLabour,
   useCompleteChecklist,
-  useHoldPart,
   useIssuePart,
   useMoveJob,
   useRecordItem,
+  useRemoveLabour,
   useReleaseHold,
   useReturnPart,
   useSignOff,
   useStartChecklist,
 } from '../api/mutations';
 import { ChecklistItemCard } from './checklist-item';
+import { AssignDialog } from './assign-dialog';
+import { EditJobDialog } from './edit-job-dialog';
+import { JobPhotos } from './job-photos';
+import { PartsFinder } from './parts-finder';
 import { JobStatusBadge } from './job-status-badge';
 import { hoursWords, vehicleLine } from './words';
 
@@ -30,7 +33,11 @@ export interface JobPermissions {
   hold: boolean;
   issue: boolean;
   signOff: boolean;
+  /** Choose who works on the job: the owner. */
+  assign?: boolean;
 }
+
+const specialOrderWords: Record<JobDetail['specialOrders'][number]['status'], string> = { open: 'to be ordered', ordered: 'ordered', received: 'received', cancelled: 'cancelled' };
 
 const moveLabels: Record<JobStatus, string> = { open: 'Reopen', in_progress: 'Start work', waiting_parts: 'Waiting for parts', done: 'Mark done', cancelled: 'Cancel job' };
 
@@ -54,6 +61,8 @@ export function JobView({ shopId, job, can, pressureUnit, meId, formatMoney }: {
   const toast = useToast();
   const move = useMoveJob(shopId, job.id);
   const [moveError, setMoveError] = useState<string | null>(null);
+  const [assigning, setAssigning] = useState(false);
+  const [editing, setEditing] = useState(false);
   const open = job.status !== 'done' && job.status !== 'cancelled';
 
   const doMove = async (to: JobStatus) => {
@@ -104,7 +113,14 @@ export function JobView({ shopId, job, can, pressureUnit, meId, formatMoney }: {
           </div>
           <div>
             <dt className="text-sm font-bold text-ink-muted">Assigned to</dt>
-            <dd>{job.assignees.length ? job.assignees.map((a) => a.name).join(', ') : 'Nobody yet'}</dd>
+            <dd className="flex flex-wrap items-center gap-2">
+              {job.assignees.length ? job.assignees.map((a) => a.name).join(', ') : 'Nobody yet'}
+              {can.assign && (
+                <Button variant="ghost" size="sm" onClick={() => setAssigning(true)}>
+                  Change who works on it
+                </Button>
+              )}
+            </dd>
           </div>
           <div>
             <dt className="text-sm font-bold text-ink-muted">Dates</dt>
@@ -121,11 +137,23 @@ export function JobView({ shopId, job, can, pressureUnit, meId, formatMoney }: {
             </div>
           )}
         </dl>
+        <p className="mt-3 flex flex-wrap gap-2">
+          <a className={buttonClasses('secondary', 'sm')} href={jobSheetHref(shopId, job.id)} target="_blank" rel="noreferrer">
+            Print the job sheet (PDF)
+          </a>
+          {can.work && (
+            <Button variant="secondary" size="sm" onClick={() => setEditing(true)}>
+              Edit the job
+            </Button>
+          )}
+        </p>
         {moveError && (
           <div className="mt-3">
             <FormMessage>{moveError}</FormMessage>
           </div>
         )}
+        {assigning && <AssignDialog shopId={shopId} job={job} onClose={() => setAssigning(false)} />}
+        {editing && <EditJobDialog shopId={shopId} job={job} onClose={() => setEditing(false)} />}
       </Section>
 
       <Blockers shopId={shopId} job={job} canSignOff={can.signOff} />
@@ -134,7 +162,7 @@ export function JobView({ shopId, job, can, pressureUnit, meId, formatMoney }: {
 
       <Parts shopId={shopId} job={job} can={can} open={open} formatMoney={formatMoney} />
 
-      <Labour shopId={shopId} job={job} editable={can.work && open} meId={meId} formatMoney={formatMoney} />
+      <Labour shopId={shopId} job={job} editable={can.work && open} meId={meId} anyone={Boolean(can.assign)} formatMoney={formatMoney} />
 
       <Section title="Cost so far">
         <dl className="grid max-w-md grid-cols-2 gap-2">
@@ -147,19 +175,9 @@ export function JobView({ shopId, job, can, pressureUnit, meId, formatMoney }: {
         </dl>
       </Section>
 
-      {job.files.length > 0 && (
-        <Section title="Photos">
-          <ul className="flex flex-wrap gap-3">
-            {job.files.map((f) => (
-              <li key={f.id}>
-                <a href={jobFileHref(shopId, job.id, f.id, 'content')} target="_blank" rel="noreferrer">
-                  <img src={jobFileHref(shopId, job.id, f.id)} alt={f.caption ?? f.originalName} className="h-28 rounded-md border-2 border-line object-cover" />
-                </a>
-              </li>
-            ))}
-          </ul>
-        </Section>
-      )}
+      <Section title="Photos">
+        <JobPhotos shopId={shopId} job={job} canUpload={can.work} />
+      </Section>
     </div>
   );
 }
@@ -290,6 +308,7 @@ function ChecklistBlock({ shopId, job, checklist, editable, pressureUnit }: { sh
   const complete = useCompleteChecklist(shopId, job.id);
   const [error, setError] = useState<string | null>(null);
   const sections = [...new Set(checklist.items.map((i) => i.section))];
+  const photos = job.files.map((f) => ({ id: f.id, label: f.caption ?? f.originalName, thumbnailHref: jobFileHref(shopId, job.id, f.id), href: jobFileHref(shopId, job.id, f.id, 'content') }));
   const recorded = Object.keys(checklist.records).length;
   const hasSafetyCautions = checklist.items.some((i) => i.cautions.includes('fuel_fire') || i.cautions.includes('brake_fluid'));
   return (
@@ -332,6 +351,7 @@ function ChecklistBlock({ shopId, job, checklist, editable, pressureUnit }: { sh
                   signedOff={job.signOffs.some((s) => s.checklistId === checklist.id && s.itemKey === item.key)}
                   editable={editable}
                   pressureUnit={pressureUnit}
+                  photos={photos}
                   saving={record.isPending && record.variables?.itemKey === item.key}
                   onSave={async (input) => {
                     await record.mutateAsync({ checklistId: checklist.id, itemKey: item.key, input });
@@ -346,43 +366,16 @@ function ChecklistBlock({ shopId, job, checklist, editable, pressureUnit }: { sh
 }
 
 function Parts({ shopId, job, can, open, formatMoney }: { shopId: string; job: JobDetail; can: JobPermissions; open: boolean; formatMoney: (minor: number) => string }) {
-  const [q, setQ] = useState('');
-  const [qty, setQty] = useState('1');
   const [error, setError] = useState<string | null>(null);
-  const found = useFindStock(shopId, can.hold && open ? q : '');
-  const hold = useHoldPart(shopId, job.id);
   const issue = useIssuePart(shopId, job.id);
   const ret = useReturnPart(shopId, job.id);
   const release = useReleaseHold(shopId, job.id);
   const run = (p: Promise<unknown>) => p.then(() => setError(null), (e: unknown) => setError(errorMessage(e)));
-  const quantity = Math.max(1, Math.floor(Number(qty) || 1));
   const activeHolds = job.holds.filter((h) => h.status === 'active');
   return (
     <Section title="Parts">
       {error && <FormMessage>{error}</FormMessage>}
-      {can.hold && open && (
-        <div className="mb-4 flex flex-col gap-2">
-          <div className="flex flex-wrap items-end gap-2">
-            <TextField label="Find a part in stock" value={q} onChange={(e) => setQ(e.target.value)} hint="Part number or description; at least 2 characters." fieldClassName="min-w-64 flex-1" />
-            <TextField label="Quantity" inputMode="numeric" value={qty} onChange={(e) => setQty(e.target.value)} fieldClassName="w-28" />
-          </div>
-          {found.data && found.data.lines.length === 0 && <p className="text-ink-muted">No stock matches “{q}”.</p>}
-          {found.data && found.data.lines.length > 0 && (
-            <ul className="flex flex-col gap-2">
-              {found.data.lines.map((l) => (
-                <li key={`${l.partId}-${l.binId}-${l.condition}`} className="flex flex-wrap items-center justify-between gap-2 rounded-md border-2 border-line p-2">
-                  <span>
-                    <PartNumber>{l.partNumber}</PartNumber> {l.partDescription} · bin <span className="font-mono">{l.binCode}</span> · {stockConditionLabels[l.condition]} · {l.free} free
-                  </span>
-                  <Button variant="secondary" disabled={l.free < quantity} loading={hold.isPending} onClick={() => void run(hold.mutateAsync({ partId: l.partId, binId: l.binId, condition: l.condition, quantity }))} aria-label={`Hold ${quantity} × ${l.partNumber} from ${l.binCode} for this job`}>
-                    Hold for job
-                  </Button>
-                </li>
-              ))}
-            </ul>
-          )}
-        </div>
-      )}
+      {open && (can.hold || can.work) && <PartsFinder shopId={shopId} jobId={job.id} canHold={can.hold} canOrder={can.work} />}
       <h3 className="mb-2 font-bold">Held for this job</h3>
       {activeHolds.length === 0 ? (
         <p className="mb-4 text-ink-muted">Nothing held.</p>
@@ -457,7 +450,7 @@ function Parts({ shopId, job, can, open, formatMoney }: { shopId: string; job: J
           <ul className="flex flex-col gap-1">
             {job.specialOrders.map((o) => (
               <li key={o.id}>
-                {o.quantity} × <PartNumber>{o.partNumber}</PartNumber> {o.partDescription} — {o.status}
+                {o.quantity} × <PartNumber>{o.partNumber}</PartNumber> {o.partDescription} — {specialOrderWords[o.status]}
                 {o.note && <span className="text-ink-muted"> ({o.note})</span>}
               </li>
             ))}
@@ -468,8 +461,10 @@ function Parts({ shopId, job, can, open, formatMoney }: { shopId: string; job: J
   );
 }
 
-function Labour({ shopId, job, editable, meId, formatMoney }: { shopId: string; job: JobDetail; editable: boolean; meId: string | null; formatMoney: (minor: number) => string }) {
+function Labour({ shopId, job, editable, meId, anyone, formatMoney }: { shopId: string; job: JobDetail; editable: boolean; meId: string | null; anyone: boolean; formatMoney: (minor: number) => string }) {
   const add = useAddLabour(shopId, job.id);
+  const remove = useRemoveLabour(shopId, job.id);
+  const [removing, setRemoving] = useState<JobDetail['labour'][number] | null>(null);
   const [hours, setHours] = useState('');
   const [description, setDescription] = useState('');
   const [workedOn, setWorkedOn] = useState(() => new Date().toISOString().slice(0, 10));
@@ -489,6 +484,25 @@ function Labour({ shopId, job, editable, meId, formatMoney }: { shopId: string; 
   };
   return (
     <Section title="Labour">
+      <ConfirmDialog
+        open={removing !== null}
+        destructive
+        title="Remove this time?"
+        message={removing ? `${hoursWords(removing.minutes)} booked by ${removing.user.name} on ${removing.workedOn} (“${removing.description}”) comes off the job and its cost.` : ''}
+        confirmLabel="Remove"
+        loading={remove.isPending}
+        onCancel={() => setRemoving(null)}
+        onConfirm={() => {
+          if (!removing) return;
+          remove.mutateAsync(removing.id).then(
+            () => setRemoving(null),
+            (e: unknown) => {
+              setRemoving(null);
+              setError(errorMessage(e));
+            },
+          );
+        }}
+      />
       {job.labour.length === 0 ? (
         <p className="mb-3 text-ink-muted">No time booked yet.</p>
       ) : (
@@ -498,8 +512,15 @@ function Labour({ shopId, job, editable, meId, formatMoney }: { shopId: string; 
               <span>
                 {l.workedOn} · {l.user.name} · {l.description}
               </span>
-              <span className="font-mono tabular-nums">
-                {hoursWords(l.minutes)} · {formatMoney(l.costMinor)}
+              <span className="flex items-center gap-2">
+                <span className="font-mono tabular-nums">
+                  {hoursWords(l.minutes)} · {formatMoney(l.costMinor)}
+                </span>
+                {editable && (anyone || l.user.id === meId) && (
+                  <Button variant="ghost" size="sm" onClick={() => setRemoving(l)} aria-label={`Remove ${hoursWords(l.minutes)} of ${l.user.name} on ${l.workedOn}`}>
+                    Remove
+                  </Button>
+                )}
               </span>
             </li>
           ))}

@@ -1,6 +1,7 @@
 import type { VehicleDetail } from '@tappet/contracts';
 import { Num } from '@tappet/ui';
 import type { ReactNode } from 'react';
+import { CostPanel } from './cost-panel';
 import { FilesPanel } from './files-panel';
 import { StatusPanel } from './status-panel';
 import { FitmentPanel, NumbersPanel, OdometerPanel, TimelinePanel } from './vehicle-sections';
@@ -13,6 +14,8 @@ export interface VehicleViewProps {
   shopUnit: 'mi' | 'km';
   formatMoney: (minor: number) => string;
   partHref: (partId: string) => string;
+  /** Sees the acquisition cost and the cost and margin panel (not mechanics). */
+  canSeeMargin?: boolean;
 }
 
 function Fact({ label, children }: { label: string; children: ReactNode }) {
@@ -25,7 +28,7 @@ function Fact({ label, children }: { label: string; children: ReactNode }) {
 }
 
 /** One vehicle: identification, status and moves, numbers check, odometer, photos, documents, timeline and parts that fit. */
-export function VehicleView({ shopId, vehicle: v, canEdit, shopUnit, formatMoney, partHref }: VehicleViewProps) {
+export function VehicleView({ shopId, vehicle: v, canEdit, shopUnit, formatMoney, partHref, canSeeMargin = true }: VehicleViewProps) {
   return (
     // Status first at every width: moving the vehicle on is the most common thing done here.
     <div className="flex flex-col gap-6">
@@ -59,7 +62,7 @@ export function VehicleView({ shopId, vehicle: v, canEdit, shopUnit, formatMoney
                   </>
                 )}
               </Fact>
-              {v.kind === 'shop_stock' && <Fact label="Acquisition cost">{v.acquisitionCostMinor !== null && <Num>{formatMoney(v.acquisitionCostMinor)}</Num>}</Fact>}
+              {v.kind === 'shop_stock' && canSeeMargin && <Fact label="Acquisition cost">{v.acquisitionCostMinor !== null && <Num>{formatMoney(v.acquisitionCostMinor)}</Num>}</Fact>}
               {v.kind !== 'customer' && <Fact label="Asking price">{v.askingPriceMinor !== null && <Num>{formatMoney(v.askingPriceMinor)}</Num>}</Fact>}
             </dl>
             {v.notes && <p className="mt-4 whitespace-pre-line">{v.notes}</p>}
@@ -69,6 +72,7 @@ export function VehicleView({ shopId, vehicle: v, canEdit, shopUnit, formatMoney
           <FitmentPanel shopId={shopId} vehicleId={v.id} partHref={partHref} />
         </div>
         <div className="flex min-w-0 flex-col gap-6">
+          {v.kind === 'shop_stock' && canSeeMargin && <CostPanel shopId={shopId} vehicleId={v.id} formatMoney={formatMoney} />}
           <NumbersPanel shopId={shopId} vehicle={v} canEdit={canEdit} />
           <TimelinePanel shopId={shopId} vehicleId={v.id} />
         </div>

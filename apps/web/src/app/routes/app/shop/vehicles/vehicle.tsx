@@ -9,6 +9,7 @@ import { VehicleStatusBadge } from '../../../../../features/vehicles/components/
 import { VehicleFormDialog } from '../../../../../features/vehicles/components/vehicle-form-dialog';
 import { VehicleView } from '../../../../../features/vehicles/components/vehicle-view';
 import { kindWords, vehicleTitle } from '../../../../../features/vehicles/components/words';
+import { useCanSeeVehicleMargin } from '../../../../../features/vehicles/hooks/use-can-see-margin';
 import { useCanSetVehicleMoney } from '../../../../../features/vehicles/hooks/use-can-set-money';
 import { useCan } from '../../../../../lib/ability';
 import { ApiError, errorMessage } from '../../../../../lib/api-client';
@@ -30,6 +31,7 @@ export default function VehicleRoute() {
   const vehicle = useVehicle(shopId, vehicleId);
   const canEdit = useCan('update', 'Vehicle', { shopId });
   const canSetMoney = useCanSetVehicleMoney(shopId);
+  const canSeeMargin = useCanSeeVehicleMargin(shopId);
   const canCreateCustomer = useCan('create', 'Customer', { shopId });
   const settings = useSettings(shopId);
   const formatMoney = useFormatMoney(shopId);
@@ -67,7 +69,7 @@ export default function VehicleRoute() {
           )}
         </div>
       </div>
-      <VehicleView shopId={shopId} vehicle={v} canEdit={canEdit} shopUnit={settings.data?.distanceUnit ?? 'mi'} formatMoney={formatMoney} partHref={(partId) => paths.shop.part.getHref(shopId, partId)} />
+      <VehicleView shopId={shopId} vehicle={v} canEdit={canEdit} shopUnit={settings.data?.distanceUnit ?? 'mi'} formatMoney={formatMoney} partHref={(partId) => paths.shop.part.getHref(shopId, partId)} canSeeMargin={canSeeMargin} />
       {editing && (
         <VehicleFormDialog
           shopId={shopId}
