@@ -222,3 +222,29 @@ describe('one-off payment checkout', () => {
     expect(verified().map((e) => e.type)).toEqual(['checkout.session.completed']);
   });
 });
+
+describe('one-off payment checkout for an invoice (sales, issue 12)', () => {
+  it('sends the session’s metadata, amount and mode in the signed checkout.session.completed event, and nothing before the page is paid', async () => {
+    const metadata = { purpose: 'tappet_invoice_payment', shopId: 'shop_elmcroft', invoiceId: 'inv_0042' };
+    const session = await stripe.checkout.sessions.create({
+      mode: 'payment',
+      line_items: [{ quantity: 1, price_data: { currency: 'gbp', unit_amount: 14400, product_data: { name: 'Invoice INV-00042' } } }],
+      success_url: 'http://localhost:3000/shops/x/sales/invoices/y?paid=card',
+      cancel_url: 'http://localhost:3000/shops/x/sales/invoices/y',
+      client_reference_id: 'shop_elmcroft',
+      customer_email: 'payer@elmcroft.test',
+      metadata,
+      payment_intent_data: { metadata, description: 'Invoice INV-00042' },
+    });
+    expect(verified()).toEqual([]);
+    const res = await payCheckout(session.url!);
+    expect(res.status).toBe(303);
+    const [event] = verified();
+    expect(event?.type).toBe('checkout.session.completed');
+    const completed = event!.data.object as Stripe.Checkout.Session;
+    expect(completed).toMatchObject({ id: session.id, mode: 'payment', payment_status: 'paid', amount_total: 14400, metadata, subscription: null });
+    // The page no longer offers the payment form, so it cannot be paid twice.
+    expect(await (await fetch(session.url!)).text()).not.toMatch(/<form method="post" action="[^"]+\/pay"/);
+    expect((await stripe.checkout.sessions.retrieve(session.id)).status).toBe('complete');
+  });
+});
