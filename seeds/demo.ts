@@ -18,6 +18,9 @@ import { seedStockDemo } from './stock-demo';
 import { seedPurchasingDemo } from './purchasing-demo';
 import { renderVehiclesDemoMedia, seedVehiclesDemo, storeVehiclesDemoFiles, type DemoStoredFile } from './vehicles-demo';
 import { seedJobsDemo } from './jobs-demo';
+import { seedCountsDemo } from './counts-demo';
+import { seedSalesDemo } from './sales-demo';
+import { seedEstimatesDemo } from './estimates-demo';
 
 /** The demo password of every demo account. Public by design: never use it for real data. */
 export const demoPassword = 'tappet-demo';
@@ -79,6 +82,9 @@ export async function seedDemo(source: DataSource | Database, at: Date = new Dat
     await seedPurchasingDemo(manager, shops.harbour.id, { owner: userIds.get('owner@harbour-works.test')!, buyer: userIds.get('buyer@harbour-works.test')! }, at);
     vehicleFiles = await seedVehiclesDemo(manager, shops.harbour.id, { owner: userIds.get('owner@harbour-works.test')!, mechanic: userIds.get('mechanic@harbour-works.test')! }, at, vehicleMedia);
     await seedJobsDemo(manager, shops.harbour.id, { owner: userIds.get('owner@harbour-works.test')!, mechanic: userIds.get('mechanic@harbour-works.test')! }, at);
+    await seedCountsDemo(manager, shops.harbour.id, { owner: userIds.get('owner@harbour-works.test')!, buyer: userIds.get('buyer@harbour-works.test')!, mechanic: userIds.get('mechanic@harbour-works.test')! }, at);
+    await seedSalesDemo(manager, shops.harbour.id, { owner: userIds.get('owner@harbour-works.test')! }, at);
+    await seedEstimatesDemo(manager, shops.harbour.id, { owner: userIds.get('owner@harbour-works.test')! }, at);
 
     // Shop administration: an invitation still open (the owner can resend it, and the new link
     // lands in the mail sink) and an API key for an invented integration. Neither token is known

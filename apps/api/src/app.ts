@@ -36,6 +36,10 @@ import { auditCsvRouter, auditRouter } from './modules/audit/audit.router';
 import { createAuditQueries } from './modules/audit/audit.query';
 import { settingsRouter } from './modules/settings/settings.router';
 import { labelsRouter } from './modules/labels/labels.router';
+import { countsRouter } from './modules/counts/counts.router';
+import { barcodeLookupRouter, partBarcodesRouter } from './modules/barcodes/barcodes.router';
+import { createBarcodesService } from './modules/barcodes/barcodes.service';
+import { createCountsService } from './modules/counts/counts.service';
 import { createLabelsService } from './modules/labels/labels.service';
 import { createSettingsService } from './modules/settings/settings.service';
 import { shopExportRouter } from './modules/shop-export/shop-export.router';
@@ -46,6 +50,8 @@ import { vehiclesRouter } from './modules/vehicles/vehicles.router';
 import { createVehiclesService } from './modules/vehicles/vehicles.service';
 import { checklistTemplatesRouter, jobsRouter } from './modules/jobs/jobs.router';
 import { createJobsService } from './modules/jobs/jobs.service';
+import { payLinkRouter, salesRouter } from './modules/sales/sales.router';
+import { createSalesService } from './modules/sales/sales.service';
 import { localFileStore, type FileStore } from './modules/uploads/file-store';
 import { requireAuth } from './middleware/authenticate';
 import type Stripe from 'stripe';
@@ -67,6 +73,12 @@ import { createListingsImportService } from './modules/purchasing/listings-impor
 import { createOrdersService } from './modules/purchasing/orders.service';
 import { createReorderService } from './modules/purchasing/reorder.service';
 import { createReturnsService } from './modules/purchasing/returns.service';
+import { estimateApprovalRouter, estimatesRouter } from './modules/estimates/estimates.router';
+import { createEstimatesService } from './modules/estimates/estimates.service';
+import { consignmentRouter } from './modules/consignment/consignment.router';
+import { createConsignmentService } from './modules/consignment/consignment.service';
+import { salesReportsRouter } from './modules/sales-reports/sales-reports.router';
+import { createSalesReportsService } from './modules/sales-reports/sales-reports.service';
 
 const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../..');
 
@@ -113,12 +125,16 @@ export function createApp(deps: AppDeps): Express {
   const apiKeys = createApiKeysService({ db, clock });
   const audit = createAuditQueries({ db });
   const settings = createSettingsService({ db, clock });
-  const labels = createLabelsService({ db });
+  const counts = createCountsService({ db, clock });
+  const barcodes = createBarcodesService({ db, clock });
+  const labels = createLabelsService({ db, counts });
   const shopExport = createShopExportService({ db, clock, uploadsDir: env.uploadsDir });
   const customers = createCustomersService({ db, clock });
   const vehicles = createVehiclesService({ db, clock, files: deps.fileStore ?? localFileStore(env.uploadsDir) });
   const jobs = createJobsService({ db, clock, files: deps.fileStore ?? localFileStore(env.uploadsDir) });
-  const billing = createBillingService({ db, clock, stripe: deps.stripe ?? createStripeClient(env), webhookSecret: stripeSettings(env).webhookSecret, publicUrl: env.publicUrl });
+  const stripeClient = deps.stripe ?? createStripeClient(env);
+  const billing = createBillingService({ db, clock, stripe: stripeClient, webhookSecret: stripeSettings(env).webhookSecret, publicUrl: env.publicUrl });
+  const sales = createSalesService({ db, clock, mailer, stripe: stripeClient, publicUrl: env.publicUrl, onMailError: (err) => logger.error({ err }, 'e-mail failed') });
   const support = createSupportAccessService({ db, clock });
   const platform = createPlatformService({ db, clock, billing, staff });
   const suppliers = createSuppliersService({ db, clock });
@@ -130,6 +146,9 @@ export function createApp(deps: AppDeps): Express {
     reorder: createReorderService({ db, clock, catalogue, suppliers, orders: purchaseOrders }),
     returns: createReturnsService({ db, clock }),
   };
+  const estimates = createEstimatesService({ db, clock, mailer, publicUrl: env.publicUrl, onMailError: (err) => logger.error({ err }, 'e-mail failed') });
+  const consignment = createConsignmentService({ db, clock });
+  const salesReports = createSalesReportsService({ db, clock });
   const https = env.publicUrl.startsWith('https:');
 
   const app = express();
@@ -191,6 +210,8 @@ export function createApp(deps: AppDeps): Express {
   // Routes that send e-mail on the caller's behalf share one allowance per person and shop.
   api.post(mailSendingRoutes, mailRequestLimit({ clock, store: deps.rateLimitStore, rule: deps.mailRequestLimit }));
   api.use('/auth', authRouter({ env, auth }));
+  // The customer's pay link from an invoice e-mail (no account; sales, issue 12).
+  api.use('/pay', payLinkRouter({ sales }));
   api.use('/me', meRouter({ auth }));
   api.use('/invitations', invitationsRouter({ env, staff, auth }));
   // Before every shop route: billing state brought up to date, support grants noted (and audited).
@@ -212,6 +233,16 @@ export function createApp(deps: AppDeps): Express {
   api.use('/shops/:shopId/jobs', requireAuth, tenantContext(db), jobsRouter({ jobs }));
   api.use('/shops/:shopId/checklist-templates', requireAuth, tenantContext(db), checklistTemplatesRouter({ jobs }));
   api.use('/shops/:shopId/stock', requireAuth, tenantContext(db), stockRouter({ stock }));
+  api.use('/shops/:shopId/sales', requireAuth, tenantContext(db), salesRouter({ sales }));
+  api.use('/shops/:shopId/estimates', requireAuth, tenantContext(db), estimatesRouter({ estimates }));
+  api.use('/shops/:shopId/consignment', requireAuth, tenantContext(db), consignmentRouter({ consignment }));
+  api.use('/shops/:shopId/sales-reports', requireAuth, tenantContext(db), salesReportsRouter({ reports: salesReports }));
+  // The customer's approval link: no account, no shop tenancy, its own rate limit.
+  api.use('/estimate-approval', estimateApprovalRouter({ estimates, clock, store: deps.rateLimitStore }));
+  api.use('/shops/:shopId/counts', requireAuth, tenantContext(db), countsRouter({ counts }));
+  // Supplier barcodes (issue 7): before the catalogue router, which owns the rest of /parts/:partId.
+  api.use('/shops/:shopId/parts/:partId/barcodes', requireAuth, tenantContext(db), partBarcodesRouter({ barcodes }));
+  api.use('/shops/:shopId/barcodes', requireAuth, tenantContext(db), barcodeLookupRouter({ barcodes }));
   api.use('/shops/:shopId', lookupRouter({ db, lookup }));
   api.use('/shops/:shopId', catalogueRouter({ db, catalogue, imports }));
   api.use('/shops', shopsRouter({ db, shops }));

@@ -56,6 +56,15 @@ describe('mechanic', () => {
     expect(owner.can('update', vehicle, 'askingPriceMinor')).toBe(true);
     expect(owner.can('update', vehicle, 'acquisitionCostMinor')).toBe(true);
   });
+  it('reads vehicles but not what one cost the shop or its margin (field-level, issue 10)', () => {
+    const vehicle = subjectOf('Vehicle', { shopId: shopA });
+    expect(ability.can('read', vehicle)).toBe(true);
+    expect(ability.can('read', vehicle, 'model')).toBe(true);
+    expect(ability.can('read', vehicle, 'margin')).toBe(false);
+    expect(ability.can('read', vehicle, 'acquisitionCostMinor')).toBe(false);
+    expect(defineAbilityFor(me, inShop('owner')).can('read', vehicle, 'margin')).toBe(true);
+    expect(defineAbilityFor(me, inShop('viewer')).can('read', vehicle, 'margin')).toBe(true);
+  });
 });
 
 describe('buyer', () => {
@@ -135,5 +144,93 @@ describe('platform admin', () => {
     expect(ability.can('read', subjectOf('Part', { shopId: shopA }))).toBe(true);
     expect(ability.can('create', subjectOf('Staff', { shopId: shopA }))).toBe(false);
     expect(ability.can('manage', subjectOf('Billing', { shopId: shopA }))).toBe(false);
+  });
+});
+
+describe('stock counts (issue 7)', () => {
+  const can = (role: ShopContext['role'], action: 'read' | 'create' | 'count' | 'update' | 'approve', shopId = shopA) => defineAbilityFor(me, inShop(role)).can(action, subjectOf('StockCount', { shopId }));
+  it('everyone reads counts; mechanics enter quantities but neither start, abandon nor post', () => {
+    for (const role of ['owner', 'mechanic', 'buyer', 'viewer'] as const) expect(can(role, 'read')).toBe(true);
+    expect(can('mechanic', 'count')).toBe(true);
+    expect(can('mechanic', 'create')).toBe(false);
+    expect(can('mechanic', 'update')).toBe(false);
+    expect(can('mechanic', 'approve')).toBe(false);
+  });
+  it('buyers start, count and abandon; only the owner posts', () => {
+    expect(can('buyer', 'create')).toBe(true);
+    expect(can('buyer', 'count')).toBe(true);
+    expect(can('buyer', 'update')).toBe(true);
+    expect(can('buyer', 'approve')).toBe(false);
+    expect(can('owner', 'approve')).toBe(true);
+  });
+  it('viewers change nothing, and nobody touches another shop’s count', () => {
+    for (const action of ['create', 'count', 'update', 'approve'] as const) expect(can('viewer', action)).toBe(false);
+    expect(can('owner', 'approve', shopB)).toBe(false);
+    expect(can('owner', 'read', shopB)).toBe(false);
+  });
+  it('a read-only shop refuses counting and posting', () => {
+    const ability = defineAbilityFor(me, inShop('owner', { writable: false }));
+    expect(ability.can('count', subjectOf('StockCount', { shopId: shopA }))).toBe(false);
+    expect(ability.can('approve', subjectOf('StockCount', { shopId: shopA }))).toBe(false);
+    expect(ability.can('read', subjectOf('StockCount', { shopId: shopA }))).toBe(true);
+  });
+});
+
+describe('sales (issue 12)', () => {
+  const invoice = subjectOf('Invoice', { shopId: shopA });
+  const payment = subjectOf('Payment', { shopId: shopA });
+  it('lets only the owner issue invoices and record payments', () => {
+    expect(defineAbilityFor(me, inShop('owner')).can('issue', invoice)).toBe(true);
+    expect(defineAbilityFor(me, inShop('owner')).can('create', payment)).toBe(true);
+    for (const role of ['buyer', 'viewer', 'mechanic'] as const) {
+      const ability = defineAbilityFor(me, inShop(role));
+      expect(ability.can('read', invoice)).toBe(true);
+      expect(ability.can('issue', invoice)).toBe(false);
+      expect(ability.can('create', invoice)).toBe(false);
+      expect(ability.can('create', payment)).toBe(false);
+    }
+  });
+  it('hides part costs and sales margins from a mechanic only', () => {
+    const mechanic = defineAbilityFor(me, inShop('mechanic'));
+    expect(mechanic.can('read', subjectOf('Part', { shopId: shopA }), 'unitCostMinor')).toBe(false);
+    expect(mechanic.can('read', subjectOf('Invoice', { shopId: shopA }), 'margin')).toBe(false);
+    expect(mechanic.can('read', subjectOf('Part', { shopId: shopA }))).toBe(true);
+    for (const role of ['owner', 'buyer', 'viewer'] as const) {
+      expect(defineAbilityFor(me, inShop(role)).can('read', subjectOf('Part', { shopId: shopA }), 'unitCostMinor')).toBe(true);
+    }
+  });
+  it('refuses another shop’s invoices', () => {
+    expect(defineAbilityFor(me, inShop('owner')).can('read', subjectOf('Invoice', { shopId: shopB }))).toBe(false);
+  });
+});
+
+// Estimates, consignment and sales reports (issue 12).
+describe('estimates, consignment and sales reports', () => {
+  const est = (assigneeIds: string[]) => subjectOf('Estimate', { shopId: shopA, assigneeIds });
+  it('lets a mechanic read only the estimates of their own jobs, and nothing of consignment or sales reports', () => {
+    const ability = defineAbilityFor(me, inShop('mechanic'));
+    expect(ability.can('read', est(['u-me']))).toBe(true);
+    expect(ability.can('read', est(['u-other']))).toBe(false);
+    expect(ability.can('send', est(['u-me']))).toBe(false);
+    expect(ability.can('read', subjectOf('Consignment', { shopId: shopA }))).toBe(false);
+    expect(ability.can('read', subjectOf('SalesReport', { shopId: shopA }))).toBe(false);
+  });
+  it('lets buyers and viewers read estimates, consignments and reports but not margins, and write none of them', () => {
+    for (const role of ['buyer', 'viewer'] as const) {
+      const ability = defineAbilityFor(me, inShop(role));
+      expect(ability.can('read', est([]))).toBe(true);
+      expect(ability.can('create', est([]))).toBe(false);
+      expect(ability.can('read', subjectOf('Consignment', { shopId: shopA }))).toBe(true);
+      expect(ability.can('update', subjectOf('Consignment', { shopId: shopA }))).toBe(false);
+      expect(ability.can('read', subjectOf('SalesReport', { shopId: shopA }))).toBe(true);
+      expect(ability.can('read', subjectOf('SalesReport', { shopId: shopA }), 'margin')).toBe(false);
+    }
+  });
+  it('lets the owner do all of it, margins included, in their own shop only', () => {
+    const ability = defineAbilityFor(me, inShop('owner'));
+    expect(ability.can('send', est([]))).toBe(true);
+    expect(ability.can('create', subjectOf('Consignment', { shopId: shopA }))).toBe(true);
+    expect(ability.can('read', subjectOf('SalesReport', { shopId: shopA }), 'margin')).toBe(true);
+    expect(ability.can('read', subjectOf('Estimate', { shopId: 'shop-b', assigneeIds: [] }))).toBe(false);
   });
 });

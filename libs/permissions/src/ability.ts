@@ -37,12 +37,19 @@ export const subjects = [
   'Part',
   'Stock',
   'Bin',
+  'StockCount',
   'Supplier',
   'PurchaseOrder',
   'Vehicle',
   'Job',
   'Customer',
   'Invoice',
+  // Payments received against invoices (sales, issue 12).
+  'Payment',
+  // Estimates for customers' jobs, consignment terms and settlements, sales reports (issue 12).
+  'Estimate',
+  'Consignment',
+  'SalesReport',
   'Platform',
   'SupportAccess',
 ] as const;
@@ -108,8 +115,14 @@ export function defineAbilityFor(actor: Actor, shop: ShopContext | null): AppAbi
     const own = { shopId: shop.shopId };
     // Everyone in the shop reads the shop's working data, and its settings (currency, units, rates
     // that every screen needs to show figures); changing settings stays with the owner.
-    for (const s of ['Shop', 'Settings', 'Part', 'Stock', 'Bin', 'Supplier', 'PurchaseOrder', 'Vehicle', 'Job', 'Customer', 'Invoice'] as const) {
+    for (const s of ['Shop', 'Settings', 'Part', 'Stock', 'Bin', 'StockCount', 'Supplier', 'PurchaseOrder', 'Vehicle', 'Job', 'Customer', 'Invoice', 'Payment'] as const) {
       can('read', s, own);
+    }
+
+    // Buyers and viewers read estimates, consignments and sales reports, but not the margins in them.
+    if (shop.role === 'buyer' || shop.role === 'viewer') {
+      can('read', ['Estimate', 'Consignment', 'SalesReport'], own);
+      cannot('read', 'SalesReport', ['margin']).because('Only the owner sees gross margins.');
     }
 
     switch (shop.role) {
@@ -119,18 +132,29 @@ export function defineAbilityFor(actor: Actor, shop: ShopContext | null): AppAbi
       case 'mechanic':
         can('hold', 'Stock', own);
         can('issue', 'Stock', own);
+        // Stock counts: everyone on the floor may enter what they counted; posting stays with the owner.
+        can('count', 'StockCount', own);
         can('update', 'Vehicle', own);
         can('create', 'Vehicle', own);
         // Field-level: what the shop paid for a vehicle and asks for it are the owner's call.
         cannot('update', 'Vehicle', ['acquisitionCostMinor', 'askingPriceMinor']).because('Only the owner sets a vehicle’s acquisition cost and asking price.');
+        // What the shop paid for a vehicle and what it makes on it are not the workshop floor's to see.
+        cannot('read', 'Vehicle', ['acquisitionCostMinor', 'margin']).because('Only the owner sees what a vehicle cost the shop and its margin.');
         // Jobs: only those the mechanic is assigned to.
         can(['update', 'hold', 'issue'], 'Job', where({ ...own, assigneeIds: actor.userId }));
+        // Estimates: only those of the jobs the mechanic is assigned to; no consignment or sales figures.
+        can('read', 'Estimate', where({ ...own, assigneeIds: actor.userId }));
+        // Sales (issue 12): a mechanic sees sell prices but not what parts cost the shop or its margin.
+        cannot('read', 'Part', ['unitCostMinor', 'margin']).because('Only the owner, buyers and viewers see what a part cost the shop and its margin.');
+        cannot('read', 'Invoice', ['unitCostMinor', 'margin']).because('Only the owner, buyers and viewers see what a sale cost the shop and its margin.');
         break;
       case 'buyer':
         can(['create', 'update', 'import'], 'Part', own);
         can(['create', 'update', 'delete', 'import'], 'Supplier', own);
         can(['receive', 'move'], 'Stock', own);
         can(['create', 'update'], 'Bin', own);
+        // Stock counts: start (create), enter (count) and abandon (update); posting is the owner's.
+        can(['create', 'count', 'update'], 'StockCount', own);
         can(['create', 'update'], 'PurchaseOrder', own);
         // Sending an order within the limit needs no approval; above it goes to the owner.
         if (shop.spendingLimitMinor !== null) {

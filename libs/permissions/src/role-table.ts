@@ -37,6 +37,9 @@ export const roleTableRows: RoleTableRow[] = [
   { label: 'Issue stock', action: 'issue', subject: 'Stock' },
   { label: 'Receive stock', action: 'receive', subject: 'Stock' },
   { label: 'Adjust stock', action: 'adjust', subject: 'Stock' },
+  { label: 'Start or abandon a stock count', action: 'create', subject: 'StockCount' },
+  { label: 'Enter counted quantities', action: 'count', subject: 'StockCount' },
+  { label: 'Post a stock count (its variances become movements)', action: 'approve', subject: 'StockCount' },
   { label: 'Keep suppliers', action: 'update', subject: 'Supplier' },
   { label: 'Draft purchase orders', action: 'create', subject: 'PurchaseOrder' },
   {
@@ -49,6 +52,7 @@ export const roleTableRows: RoleTableRow[] = [
   { label: 'Approve a purchase order', action: 'approve', subject: 'PurchaseOrder' },
   { label: 'Create and edit vehicles', action: 'update', subject: 'Vehicle' },
   { label: 'Set a vehicle’s acquisition cost and asking price', action: 'update', subject: 'Vehicle', field: 'askingPriceMinor' },
+  { label: 'See a vehicle’s total cost and margin', action: 'read', subject: 'Vehicle', field: 'margin' },
   {
     label: 'Record checklists, parts and labour on a job',
     action: 'update',
@@ -56,6 +60,23 @@ export const roleTableRows: RoleTableRow[] = [
     record: (me) => ({ assigneeIds: [me] }),
     condition: 'only on jobs assigned to them',
   },
+  { label: 'Read invoices, credit notes and payments', action: 'read', subject: 'Invoice' },
+  { label: 'Draft and issue invoices and credit notes, set line prices', action: 'issue', subject: 'Invoice' },
+  { label: 'Record payments (cash, bank transfer) and take card payments', action: 'create', subject: 'Payment' },
+  { label: 'See what parts cost and the margin on sales', action: 'read', subject: 'Part', field: 'margin' },
+  { label: 'Set pricing rules, list prices and tax rates', action: 'update', subject: 'Settings' },
+  {
+    label: 'See estimates for customers',
+    action: 'read',
+    subject: 'Estimate',
+    record: (me) => ({ assigneeIds: [me] }),
+    condition: 'only those of jobs assigned to them',
+  },
+  { label: 'Write and send estimates', action: 'send', subject: 'Estimate' },
+  { label: 'See consignment terms and settlements', action: 'read', subject: 'Consignment' },
+  { label: 'Agree consignment terms, settle and record payouts', action: 'create', subject: 'Consignment' },
+  { label: 'See sales reports (sales by period, unpaid invoices)', action: 'read', subject: 'SalesReport' },
+  { label: 'See gross margins in sales reports', action: 'read', subject: 'SalesReport', field: 'margin' },
 ];
 
 const sampleShop = '00000000-0000-4000-8000-000000000001';

@@ -22,6 +22,11 @@ import { seedPurchasingFixture, type PurchasingFixture } from '../modules/purcha
 import { startFakeStripe, type FakeStripe } from '../../../../tools/fake-stripe/server.ts';
 import { seedPlatformFixture, type PlatformFixture } from '../modules/platform/platform.test-fixture';
 import { seedJobsFixture, type JobsFixture } from '../modules/jobs/jobs.test-fixture';
+import { seedCountsFixture, type CountsFixture } from '../modules/counts/counts.test-fixture';
+import { freshGtin13, seedBarcodesFixture, type BarcodesFixture } from '../modules/barcodes/barcodes.test-fixture';
+import { seedSalesMatrixFixture, type SalesMatrixFixture } from '../modules/sales/sales.test-fixture';
+import { seedEstimatesFixture, type EstimatesFixture } from '../modules/estimates/estimates.test-fixture';
+import { seedConsignmentFixture, type ConsignmentFixture } from '../modules/consignment/consignment.test-fixture';
 
 type Persona = 'anonymous' | ShopRole | 'outsider' | 'platformAdmin';
 const personas: Persona[] = ['anonymous', 'owner', 'mechanic', 'buyer', 'viewer', 'outsider', 'platformAdmin'];
@@ -42,6 +47,18 @@ interface World {
   /** Jobs on the vehicle fixture, assigned to nobody (issue 10); seeded after vehicles and stock. */
   jobs: JobsFixture;
   mechanicId: string;
+  /** Stock counts (issue 7): one open on labelBinId with its line counted, spare open ones, an empty bin to start more on. */
+  counts: CountsFixture;
+  countBinId: string;
+  /** A purchase receipt, for receipt labels (issue 7). */
+  receiptId: string;
+  /** Supplier barcodes on the catalogue fixture's part (issue 7). */
+  barcodes: BarcodesFixture;
+  /** Invoices, drafts, jobs to invoice and a shop-stock vehicle (sales, issue 12). */
+  sales: SalesMatrixFixture;
+  /** Estimates on jobs of the vehicle fixture, and consigned vehicles of its customer (issue 12). */
+  estimates: EstimatesFixture;
+  consignment: ConsignmentFixture;
 }
 
 type Access =
@@ -52,7 +69,7 @@ type Access =
   /** Members of the shop in the request; others get 404. */
   | { kind: 'member'; status: number }
   /** Members whose ability allows `action` on `subject`; other members 403, non-members 404. */
-  | { kind: 'ability'; action: Action; subject: SubjectName; status: number }
+  | { kind: 'ability'; action: Action; subject: SubjectName; status: number; field?: string }
   /** Platform admins only; everyone else signed in gets 403. */
   | { kind: 'platform'; status: number };
 
@@ -233,6 +250,45 @@ const matrix: Record<string, Entry> = {
   'POST /api/shops/:shopId/labels/bins': {
     access: { kind: 'ability', action: 'read', subject: 'Bin', status: 200 },
     call: (a, w) => a.post(`/api/shops/${w.shopId}/labels/bins`).set(csrf).send({ binIds: [w.labelBinId], contents: true }),
+  },
+  // Labels from a stock count and from purchase receipts (issue 7).
+  'POST /api/shops/:shopId/labels/counts/:countId': {
+    access: { kind: 'ability', action: 'read', subject: 'Bin', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/labels/counts/${w.counts.countId}`).set(csrf).send({ contents: true }),
+  },
+  'POST /api/shops/:shopId/labels/receipts': {
+    access: { kind: 'ability', action: 'read', subject: 'PurchaseOrder', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/labels/receipts`).set(csrf).send({ receiptIds: [w.receiptId] }),
+  },
+  // Stock counts (issue 7).
+  'GET /api/shops/:shopId/counts': { access: { kind: 'ability', action: 'read', subject: 'StockCount', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/counts?status=open`) },
+  'POST /api/shops/:shopId/counts': {
+    access: { kind: 'ability', action: 'create', subject: 'StockCount', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/counts`).set(csrf).send({ binIds: [w.countBinId], note: 'Matrix count' }),
+  },
+  'GET /api/shops/:shopId/counts/:countId': { access: { kind: 'ability', action: 'read', subject: 'StockCount', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/counts/${w.counts.countId}`) },
+  'POST /api/shops/:shopId/counts/:countId/entries': {
+    access: { kind: 'ability', action: 'count', subject: 'StockCount', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/counts/${w.counts.countId}/entries`).set(csrf).send({ lineId: w.counts.lineId, quantity: 3 }),
+  },
+  'GET /api/shops/:shopId/counts/:countId/variances': { access: { kind: 'ability', action: 'read', subject: 'StockCount', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/counts/${w.counts.countId}/variances`) },
+  'POST /api/shops/:shopId/counts/:countId/post': {
+    access: { kind: 'ability', action: 'approve', subject: 'StockCount', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/counts/${w.counts.nextOpenCountId()}/post`).set(csrf),
+  },
+  'GET /api/shops/:shopId/parts/:partId/barcodes': { access: { kind: 'ability', action: 'read', subject: 'Part', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/parts/${w.catalogue.partId}/barcodes`) },
+  'POST /api/shops/:shopId/parts/:partId/barcodes': {
+    access: { kind: 'ability', action: 'update', subject: 'Part', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/parts/${w.catalogue.partId}/barcodes`).set(csrf).send({ code: freshGtin13() }),
+  },
+  'DELETE /api/shops/:shopId/parts/:partId/barcodes/:barcodeId': {
+    access: { kind: 'ability', action: 'update', subject: 'Part', status: 204 },
+    call: (a, w) => a.delete(`/api/shops/${w.shopId}/parts/${w.catalogue.partId}/barcodes/${w.barcodes.nextBarcodeId()}`).set(csrf),
+  },
+  'GET /api/shops/:shopId/barcodes/:code': { access: { kind: 'ability', action: 'read', subject: 'Part', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/barcodes/${w.barcodes.code}`) },
+  'POST /api/shops/:shopId/counts/:countId/abandon': {
+    access: { kind: 'ability', action: 'update', subject: 'StockCount', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/counts/${w.counts.nextOpenCountId()}/abandon`).set(csrf),
   },  // Vehicles and customers (issue 9).
   'GET /api/shops/:shopId/customers': { access: { kind: 'ability', action: 'read', subject: 'Customer', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/customers?q=fixture`) },
   'POST /api/shops/:shopId/customers': {
@@ -252,6 +308,8 @@ const matrix: Record<string, Entry> = {
     call: (a, w) => a.post(`/api/shops/${w.shopId}/jobs`).set(csrf).send({ vehicleId: w.vehicles.vehicleId, title: 'Matrix job', customerRequest: 'Matrix', assigneeIds: [w.mechanicId] }),
   },
   'GET /api/shops/:shopId/jobs/:jobId': { access: { kind: 'ability', action: 'read', subject: 'Job', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}`) },
+  'GET /api/shops/:shopId/vehicles/:vehicleId/costs': { access: { kind: 'ability', action: 'read', subject: 'Vehicle', field: 'margin', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/vehicles/${w.vehicles.vehicleId}/costs`) },
+  'GET /api/shops/:shopId/jobs/:jobId/sheet.pdf': { access: { kind: 'ability', action: 'read', subject: 'Job', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}/sheet.pdf`) },
   'PATCH /api/shops/:shopId/jobs/:jobId': {
     access: { kind: 'ability', action: 'update', subject: 'Job', status: 200 },
     call: (a, w) => a.patch(`/api/shops/${w.shopId}/jobs/${w.jobs.jobId}`).set(csrf).send({ notes: `Matrix ${randomUUID()}` }),
@@ -509,6 +567,107 @@ const matrix: Record<string, Entry> = {
     access: { kind: 'ability', action: 'update', subject: 'PurchaseOrder', status: 200 },
     call: (a, w) => a.post(`/api/shops/${w.shopId}/purchasing/returns/${w.purchasing.nextReturnId()}/credit`).set(csrf).send({ creditedMinor: 1000 }),
   },
+  // Sales (issue 12): settings and prices, invoices, credit notes, payments, the customer's pay link.
+  'GET /api/shops/:shopId/sales/settings': { access: { kind: 'ability', action: 'read', subject: 'Settings', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/sales/settings`) },
+  'PUT /api/shops/:shopId/sales/settings': { access: { kind: 'ability', action: 'update', subject: 'Settings', status: 200 }, call: (a, w) => a.put(`/api/shops/${w.shopId}/sales/settings`).set(csrf).send({ taxRounding: 'per-line' }) },
+  'GET /api/shops/:shopId/sales/sell-prices': { access: { kind: 'ability', action: 'read', subject: 'Part', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/sales/sell-prices`).query({ partIds: w.sales.partId }) },
+  'PUT /api/shops/:shopId/sales/parts/:partId/list-price': {
+    access: { kind: 'ability', action: 'update', subject: 'Settings', status: 200 },
+    call: (a, w) => a.put(`/api/shops/${w.shopId}/sales/parts/${w.sales.partId}/list-price`).set(csrf).send({ listPriceMinor: null }),
+  },
+  'GET /api/shops/:shopId/sales/invoices': { access: { kind: 'ability', action: 'read', subject: 'Invoice', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/sales/invoices`).query({ status: 'unpaid' }) },
+  'POST /api/shops/:shopId/sales/invoices': {
+    access: { kind: 'ability', action: 'create', subject: 'Invoice', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/sales/invoices`).set(csrf).send({ customerName: 'Matrix', lines: [{ kind: 'other', description: 'Matrix', quantity: 1, unitPriceMinor: 100 }] }),
+  },
+  'POST /api/shops/:shopId/sales/invoices/from-job': { access: { kind: 'ability', action: 'create', subject: 'Invoice', status: 201 }, call: (a, w) => a.post(`/api/shops/${w.shopId}/sales/invoices/from-job`).set(csrf).send({ jobId: w.sales.nextJobId() }) },
+  'POST /api/shops/:shopId/sales/invoices/from-vehicle': {
+    access: { kind: 'ability', action: 'create', subject: 'Invoice', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/sales/invoices/from-vehicle`).set(csrf).send({ vehicleId: w.sales.vehicleId, customerName: 'Matrix Buyer', priceMinor: 310000 }),
+  },
+  'POST /api/shops/:shopId/sales/counter-sales': {
+    access: { kind: 'ability', action: 'create', subject: 'Invoice', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/sales/counter-sales`).set(csrf).send({ lines: [{ partId: w.sales.partId, binId: w.sales.binId, condition: 'new', quantity: 1 }] }),
+  },
+  'GET /api/shops/:shopId/sales/invoices/:invoiceId': { access: { kind: 'ability', action: 'read', subject: 'Invoice', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/sales/invoices/${w.sales.payableId}`) },
+  'PATCH /api/shops/:shopId/sales/invoices/:invoiceId': {
+    access: { kind: 'ability', action: 'update', subject: 'Invoice', status: 200 },
+    call: (a, w) => a.patch(`/api/shops/${w.shopId}/sales/invoices/${w.sales.draftId}`).set(csrf).send({ notes: `Matrix ${randomUUID().slice(0, 8)}` }),
+  },
+  'DELETE /api/shops/:shopId/sales/invoices/:invoiceId': { access: { kind: 'ability', action: 'delete', subject: 'Invoice', status: 204 }, call: (a, w) => a.delete(`/api/shops/${w.shopId}/sales/invoices/${w.sales.nextDraftId()}`).set(csrf) },
+  'POST /api/shops/:shopId/sales/invoices/:invoiceId/issue': {
+    access: { kind: 'ability', action: 'issue', subject: 'Invoice', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/sales/invoices/${w.sales.nextDraftId()}/issue`).set(csrf).send({ sendEmail: false }),
+  },
+  'POST /api/shops/:shopId/sales/invoices/:invoiceId/credit-notes': {
+    access: { kind: 'ability', action: 'issue', subject: 'Invoice', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/sales/invoices/${w.sales.nextIssuedId()}/credit-notes`).set(csrf).send({ reason: 'Matrix credit' }),
+  },
+  'POST /api/shops/:shopId/sales/invoices/:invoiceId/payments': {
+    access: { kind: 'ability', action: 'create', subject: 'Payment', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/sales/invoices/${w.sales.payableId}/payments`).set(csrf).send({ method: 'cash', amountMinor: 1, receivedOn: '2026-01-15' }),
+  },
+  'POST /api/shops/:shopId/sales/invoices/:invoiceId/card-checkout': {
+    access: { kind: 'ability', action: 'create', subject: 'Payment', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/sales/invoices/${w.sales.payableId}/card-checkout`).set(csrf).send({ amountMinor: 100 }),
+  },
+  'GET /api/shops/:shopId/sales/invoices/:invoiceId/pdf': { access: { kind: 'ability', action: 'read', subject: 'Invoice', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/sales/invoices/${w.sales.payableId}/pdf`) },
+  'POST /api/shops/:shopId/sales/invoices/:invoiceId/email': { access: { kind: 'ability', action: 'send', subject: 'Invoice', status: 200 }, call: (a, w) => a.post(`/api/shops/${w.shopId}/sales/invoices/${w.sales.payableId}/email`).set(csrf) },
+  // The customer's pay link needs no account; the sample invoice is paid, so no checkout is opened.
+  'GET /api/pay/:token': { access: { kind: 'public', status: 200 }, call: (a, w) => a.get(`/api/pay/${w.sales.paidToken}`) },
+  'GET /api/pay/:token/done': { access: { kind: 'public', status: 200 }, call: (a, w) => a.get(`/api/pay/${w.sales.paidToken}/done`) },
+  // Estimates and the customer's approval link (issue 12).
+  'GET /api/shops/:shopId/estimates': { access: { kind: 'ability', action: 'read', subject: 'Estimate', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/estimates`) },
+  'GET /api/shops/:shopId/estimates/jobs/:jobId': { access: { kind: 'ability', action: 'read', subject: 'Estimate', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/estimates/jobs/${w.estimates.jobId}`) },
+  'POST /api/shops/:shopId/estimates': {
+    access: { kind: 'ability', action: 'create', subject: 'Estimate', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/estimates`).set(csrf).send({ jobId: w.estimates.nextJobId(), lines: [{ kind: 'labour', description: 'Matrix labour', quantity: 1 }] }),
+  },
+  'GET /api/shops/:shopId/estimates/jobs/:jobId/approval': { access: { kind: 'ability', action: 'read', subject: 'Estimate', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/estimates/jobs/${w.estimates.jobId}/approval`) },
+  'GET /api/shops/:shopId/estimates/:estimateId': { access: { kind: 'ability', action: 'read', subject: 'Estimate', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/estimates/${w.estimates.draftId}`) },
+  'GET /api/shops/:shopId/estimates/:estimateId/pdf': { access: { kind: 'ability', action: 'read', subject: 'Estimate', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/estimates/${w.estimates.draftId}/pdf`) },
+  'PATCH /api/shops/:shopId/estimates/:estimateId': {
+    access: { kind: 'ability', action: 'update', subject: 'Estimate', status: 200 },
+    call: (a, w) => a.patch(`/api/shops/${w.shopId}/estimates/${w.estimates.draftId}`).set(csrf).send({ note: `Matrix note ${randomUUID().slice(0, 8)}` }),
+  },
+  'POST /api/shops/:shopId/estimates/:estimateId/send': {
+    access: { kind: 'ability', action: 'send', subject: 'Estimate', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/estimates/${w.estimates.sendableId}/send`).set(csrf).send({}),
+  },
+  'POST /api/shops/:shopId/estimates/:estimateId/revise': {
+    access: { kind: 'ability', action: 'create', subject: 'Estimate', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/estimates/${w.estimates.nextRevisableId()}/revise`).set(csrf),
+  },
+  // Made-up tokens: reachable by anyone, refused as unknown, nothing changed (estimates tests cover real links).
+  'POST /api/estimate-approval/view': { access: { kind: 'public', status: 404 }, call: (a) => a.post('/api/estimate-approval/view').set(csrf).send({ token: 'm'.repeat(43) }) },
+  'POST /api/estimate-approval/approve': { access: { kind: 'public', status: 404 }, call: (a) => a.post('/api/estimate-approval/approve').set(csrf).send({ token: 'm'.repeat(43), version: 1, grossMinor: 100, name: 'Matrix' }) },
+  'POST /api/estimate-approval/decline': { access: { kind: 'public', status: 404 }, call: (a) => a.post('/api/estimate-approval/decline').set(csrf).send({ token: 'm'.repeat(43), reason: 'Matrix decline' }) },
+  // Consignment terms and settlements (issue 12).
+  'GET /api/shops/:shopId/consignment/vehicles': { access: { kind: 'ability', action: 'read', subject: 'Consignment', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/consignment/vehicles`) },
+  'GET /api/shops/:shopId/consignment/vehicles/:vehicleId': { access: { kind: 'ability', action: 'read', subject: 'Consignment', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/consignment/vehicles/${w.consignment.vehicleId}`) },
+  'PUT /api/shops/:shopId/consignment/vehicles/:vehicleId/terms': {
+    access: { kind: 'ability', action: 'update', subject: 'Consignment', status: 200 },
+    call: (a, w) => a.put(`/api/shops/${w.shopId}/consignment/vehicles/${w.consignment.vehicleId}/terms`).set(csrf).send({ commissionKind: 'fixed', commissionFixedMinor: 50_000 + Math.floor(Math.random() * 1000), agreedOn: '2026-01-15' }),
+  },
+  'POST /api/shops/:shopId/consignment/vehicles/:vehicleId/settlement': {
+    access: { kind: 'ability', action: 'create', subject: 'Consignment', status: 201 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/consignment/vehicles/${w.consignment.nextSettleableId()}/settlement`).set(csrf).send({ salePriceMinor: 400_000, soldOn: '2026-01-20' }),
+  },
+  'POST /api/shops/:shopId/consignment/vehicles/:vehicleId/settlement/payout': {
+    access: { kind: 'ability', action: 'update', subject: 'Consignment', status: 200 },
+    call: (a, w) => a.post(`/api/shops/${w.shopId}/consignment/vehicles/${w.consignment.nextUnpaidId()}/settlement/payout`).set(csrf).send({ paidOn: '2026-01-22', method: 'bank_transfer', reference: 'Matrix payout' }),
+  },
+  // Sales reports (issue 12): margins are the owner's (field-level rule on SalesReport).
+  'GET /api/shops/:shopId/sales-reports/sales': { access: { kind: 'ability', action: 'read', subject: 'SalesReport', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/sales-reports/sales?period=week`) },
+  'GET /api/shops/:shopId/sales-reports/sales.csv': { access: { kind: 'ability', action: 'read', subject: 'SalesReport', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/sales-reports/sales.csv`) },
+  'GET /api/shops/:shopId/sales-reports/margins': { access: { kind: 'ability', action: 'manage', subject: 'SalesReport', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/sales-reports/margins`) },
+  'GET /api/shops/:shopId/sales-reports/margins.csv': { access: { kind: 'ability', action: 'manage', subject: 'SalesReport', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/sales-reports/margins.csv?period=day`) },
+  'GET /api/shops/:shopId/sales-reports/unpaid': { access: { kind: 'ability', action: 'read', subject: 'SalesReport', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/sales-reports/unpaid`) },
+  'GET /api/shops/:shopId/sales-reports/unpaid.csv': { access: { kind: 'ability', action: 'read', subject: 'SalesReport', status: 200 }, call: (a, w) => a.get(`/api/shops/${w.shopId}/sales-reports/unpaid.csv`) },
+  'GET /api/shops/:shopId/consignment/vehicles/:vehicleId/settlement/pdf': {
+    access: { kind: 'ability', action: 'read', subject: 'Consignment', status: 200 },
+    call: (a, w) => a.get(`/api/shops/${w.shopId}/consignment/vehicles/${w.consignment.settledVehicleId}/settlement/pdf`),
+  },
 };
 
 function expectedStatus(access: Access, persona: Persona, world: World): number {
@@ -520,7 +679,7 @@ function expectedStatus(access: Access, persona: Persona, world: World): number 
   if (role === null) return 404;
   if (access.kind === 'member') return access.status;
   const ability: AppAbility = defineAbilityFor({ userId: 'u', isPlatformAdmin: false }, { shopId: world.shopId, role, spendingLimitMinor: null });
-  return ability.can(access.action, subjectOf(access.subject, { shopId: world.shopId })) ? access.status : 403;
+  return ability.can(access.action, subjectOf(access.subject, { shopId: world.shopId }), access.field) ? access.status : 403;
 }
 
 let ctx: TestContext;
@@ -539,7 +698,14 @@ beforeAll(async () => {
     admin: await seedShopAdminFixture(ctx.db, shop.shop.id, shop.byRole.owner.id),
     purchasing: await seedPurchasingFixture(ctx.db, shop.shop.id),
     labelBinId: '',
+    counts: null as unknown as CountsFixture,
+    countBinId: '',
+    receiptId: '',
+    barcodes: null as unknown as BarcodesFixture,
     jobs: null as unknown as JobsFixture,
+    estimates: null as unknown as EstimatesFixture,
+    consignment: null as unknown as ConsignmentFixture,
+    sales: null as unknown as SalesMatrixFixture,
     mechanicId: shop.byRole.mechanic.id,
     vehicles: await seedVehicleFixture(ctx.db, shop.shop.id, ctx.env.uploadsDir),
     stock: await seedStockFixture(ctx.db, shop.shop.id),
@@ -555,6 +721,20 @@ beforeAll(async () => {
   };
   world.labelBinId = await seedLabelBin(ctx.db, shop.shop.id, 'MX-BIN', [{ partId: world.catalogue.partId, onHand: 3 }]);
   world.jobs = await seedJobsFixture(ctx.db, shop.shop.id, ctx.env.uploadsDir, { vehicleId: world.vehicles.vehicleId, partId: world.stock.partId, binId: world.stock.binId, userId: world.mechanicId });
+  // Stock counts and receipt labels (issue 7): the count covers the label bin (3 of the catalogue part).
+  world.counts = await seedCountsFixture(ctx.db, shop.shop.id, { binId: world.labelBinId, makeBin: (code) => seedLabelBin(ctx.db, shop.shop.id, code, []) }, 32);
+  world.countBinId = await seedLabelBin(ctx.db, shop.shop.id, 'MX-COUNT', []);
+  world.barcodes = await seedBarcodesFixture(ctx.db, shop.shop.id, world.catalogue.partId, 20);
+  world.sales = await seedSalesMatrixFixture(ctx.db, shop.shop.id, { partId: world.stock.partId, binId: world.stock.binId, vehicleId: world.vehicles.vehicleId });
+  world.estimates = await seedEstimatesFixture(ctx.db, shop.shop.id, ctx.env.uploadsDir, world.vehicles.vehicleId);
+  world.consignment = await seedConsignmentFixture(ctx.db, shop.shop.id, world.vehicles.customerId);
+  {
+    const owner = await signedInAgent(ctx.app, shop.byRole.owner.email, shop.password);
+    const orderId = world.purchasing.nextSentId();
+    const lineId = world.purchasing.nextSentLineId(orderId);
+    const received = await owner.post(`/api/shops/${shop.shop.id}/purchasing/orders/${orderId}/receipts`).set(csrf).send({ lines: [{ lineId, quantity: 2, binId: world.purchasing.binId }] });
+    world.receiptId = (received.body.receipts as Array<{ id: string; lineId: string }>).find((r) => r.lineId === lineId)!.id;
+  }
 });
 afterAll(async () => {
   await ctx.close();
@@ -598,6 +778,11 @@ const unaudited: Record<string, string> = {
   'POST /api/shops/:shopId/purchasing/orders/from-reorder': 'the sample asks for a part with nothing due, so no draft is written; each draft it writes is audited as purchase_order.created (insertDraft)',
   'POST /api/shops/:shopId/labels/parts': 'a read: renders a PDF of labels and changes nothing (POST only because a selection of ids does not fit a URL)',
   'POST /api/shops/:shopId/labels/bins': 'a read: renders a PDF of labels and changes nothing',
+  'POST /api/shops/:shopId/labels/counts/:countId': 'a read: renders a PDF of the count’s bin labels and changes nothing',
+  'POST /api/shops/:shopId/labels/receipts': 'a read: renders a PDF of labels for goods received and changes nothing',
+  'POST /api/estimate-approval/view': 'a read: shows the estimate behind a token (POST keeps the token out of paths and logs)',
+  'POST /api/estimate-approval/approve': 'the sample token is made up and must change nothing; a real approval is audited (estimates tests)',
+  'POST /api/estimate-approval/decline': 'the sample token is made up and must change nothing; a real decline is audited (estimates tests)',
 };
 
 /** Samples for routes whose matrix call writes nothing on purpose (a preview), so the check has a real write. */
@@ -640,7 +825,7 @@ describe('platform admin with support access', () => {
     if (access.kind === 'public' || access.kind === 'signed-in' || access.kind === 'platform') return access.status;
     // Support sees the shop's data, but is no member of it.
     if (access.kind === 'member') return 404;
-    return supportAbility(w).can(access.action, subjectOf(access.subject, { shopId: w.shopId })) ? access.status : 403;
+    return supportAbility(w).can(access.action, subjectOf(access.subject, { shopId: w.shopId }), access.field) ? access.status : 403;
   };
   beforeAll(async () => {
     keepGrants = true;
@@ -665,7 +850,7 @@ describe('owner of a suspended shop', () => {
   const readOnlyWorld = (): World => {
     const fresh = <T extends object>(fixture: T): T =>
       new Proxy(fixture, { get: (target, key, receiver) => (typeof key === 'string' && key.startsWith('next') ? () => randomUUID() : Reflect.get(target, key, receiver)) });
-    return { ...world, shopId: world.platform.readOnlyShop.shopId, catalogue: fresh(world.catalogue), admin: fresh(world.admin), vehicles: fresh(world.vehicles), stock: fresh(world.stock), platform: fresh(world.platform) };
+    return { ...world, shopId: world.platform.readOnlyShop.shopId, catalogue: fresh(world.catalogue), admin: fresh(world.admin), vehicles: fresh(world.vehicles), stock: fresh(world.stock), platform: fresh(world.platform), counts: fresh(world.counts), barcodes: fresh(world.barcodes), sales: fresh(world.sales), estimates: fresh(world.estimates), consignment: fresh(world.consignment) };
   };
   for (const [route, entry] of Object.entries(matrix).filter(([r]) => isShopRoute(r))) {
     const write = !route.startsWith('GET ');

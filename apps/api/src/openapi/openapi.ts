@@ -23,13 +23,19 @@ import { auditRouteDocs } from '../modules/audit/audit.openapi';
 import { settingsRouteDocs } from '../modules/settings/settings.openapi';
 import { labelRouteDocs } from '../modules/labels/labels.openapi';
 import { shopExportRouteDocs } from '../modules/shop-export/shop-export.openapi';
+import { estimateRouteDocs } from '../modules/estimates/estimates.openapi';
+import { consignmentRouteDocs } from '../modules/consignment/consignment.openapi';
+import { salesReportRouteDocs } from '../modules/sales-reports/sales-reports.openapi';
 import { purchasingRouteDocs } from '../modules/purchasing/purchasing.openapi';
 import { customerRouteDocs } from '../modules/customers/customers.openapi';
 import { vehicleRouteDocs } from '../modules/vehicles/vehicles.openapi';
 import { jobRouteDocs } from '../modules/jobs/jobs.openapi';
+import { countRouteDocs } from '../modules/counts/counts.openapi';
+import { barcodeRouteDocs } from '../modules/barcodes/barcodes.openapi';
 import { billingRouteDocs } from '../modules/billing/billing.openapi';
 import { platformRouteDocs } from '../modules/platform/platform.openapi';
 import { createTestShopRequestSchema, createTestShopResponseSchema } from '../modules/test-support/test-support.router';
+import { salesRouteDocs } from '../modules/sales/sales.openapi';
 
 type Method = RouteConfig['method'];
 
@@ -139,7 +145,13 @@ export function apiRoutes(options: { testSupport: boolean }): RouteDoc[] {
     ...customerRouteDocs,
     ...vehicleRouteDocs,
     ...jobRouteDocs,
+    ...countRouteDocs,
+    ...barcodeRouteDocs,
     ...billingRouteDocs,
+    ...salesRouteDocs,
+    ...estimateRouteDocs,
+    ...consignmentRouteDocs,
+    ...salesReportRouteDocs,
     ...platformRouteDocs,
   ];
   if (options.testSupport) {

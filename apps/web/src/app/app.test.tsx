@@ -128,7 +128,7 @@ describe('the signed-in app', () => {
     const { requests } = ownerApi({ [`PATCH /shops/${shopA}`]: () => ({ body: shopDetail(shopA, 'Harbour Works Ltd') }) });
     renderApp(`/shops/${shopA}`);
     const nav = await screen.findByRole('navigation', { name: 'Main' }, slow);
-    expect(within(nav).getAllByRole('link').map((l) => l.textContent)).toEqual(['Lookup', 'Home', 'Catalogue', 'Stock', 'Purchasing', 'Vehicles', 'Jobs', 'Shop', 'Staff', 'Audit log', 'API keys', 'Billing', 'Support access', 'API documentation']);
+    expect(within(nav).getAllByRole('link').map((l) => l.textContent)).toEqual(['Lookup', 'Home', 'Catalogue', 'Stock', 'Counts', 'Purchasing', 'Sales', 'Sales reports', 'Consignment', 'Vehicles', 'Jobs', 'Shop', 'Staff', 'Audit log', 'API keys', 'Billing', 'Support access', 'API documentation']);
     const field = await screen.findByLabelText('Shop name', {}, slow);
     await user.clear(field);
     await user.type(field, 'Harbour Works Ltd');

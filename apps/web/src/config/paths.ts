@@ -13,6 +13,8 @@ export const paths = {
     forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
     resetPassword: { path: '/reset-password', getHref: (token: string) => `/reset-password?token=${encodeURIComponent(token)}` },
     acceptInvitation: { path: '/accept-invitation', getHref: (token: string) => `/accept-invitation?token=${encodeURIComponent(token)}` },
+    /** The customer's answer to an e-mailed estimate; the token rides in the fragment. */
+    estimateApproval: { path: '/estimate-approval', getHref: (token: string) => `/estimate-approval#${token}` },
   },
   shop: {
     home: { path: '/shops/:shopId', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}` },
@@ -54,6 +56,12 @@ export const paths = {
     stockHolds: { path: '/shops/:shopId/stock/holds', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/stock/holds` },
     stockBins: { path: '/shops/:shopId/stock/bins', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/stock/bins` },
     stockValue: { path: '/shops/:shopId/stock/value', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/stock/value` },
+    counts: { path: '/shops/:shopId/counts', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/counts` },
+    count: { path: '/shops/:shopId/counts/:countId', getHref: (shopId: string, countId: string) => `/shops/${encodeURIComponent(shopId)}/counts/${encodeURIComponent(countId)}` },
+    countReport: {
+      path: '/shops/:shopId/counts/:countId/differences',
+      getHref: (shopId: string, countId: string) => `/shops/${encodeURIComponent(shopId)}/counts/${encodeURIComponent(countId)}/differences`,
+    },
     jobs: {
       path: '/shops/:shopId/jobs',
       /** `search`: `view=mine` for the caller's own jobs, `closed=true` to include done and cancelled. */
@@ -73,6 +81,17 @@ export const paths = {
       getHref: (shopId: string, supplierId: string) => `/shops/${encodeURIComponent(shopId)}/purchasing/suppliers/${encodeURIComponent(supplierId)}`,
     },
     purchasingReturns: { path: '/shops/:shopId/purchasing/returns', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/purchasing/returns` },
+    // Sales (issue 12).
+    salesInvoices: { path: '/shops/:shopId/sales/invoices', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/sales/invoices` },
+    salesInvoice: {
+      path: '/shops/:shopId/sales/invoices/:invoiceId',
+      getHref: (shopId: string, invoiceId: string) => `/shops/${encodeURIComponent(shopId)}/sales/invoices/${encodeURIComponent(invoiceId)}`,
+    },
+    salesCounter: { path: '/shops/:shopId/sales/counter', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/sales/counter` },
+    consignment: { path: '/shops/:shopId/consignment', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/consignment` },
+    consignmentVehicle: { path: '/shops/:shopId/consignment/:vehicleId', getHref: (shopId: string, vehicleId: string) => `/shops/${encodeURIComponent(shopId)}/consignment/${encodeURIComponent(vehicleId)}` },
+    salesReports: { path: '/shops/:shopId/sales/reports', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/sales/reports` },
+    salesPricing: { path: '/shops/:shopId/sales/pricing', getHref: (shopId: string) => `/shops/${encodeURIComponent(shopId)}/sales/pricing` },
   },
   platform: { path: '/platform', getHref: () => '/platform' },
   platformPlans: { path: '/platform/plans', getHref: () => '/platform/plans' },

@@ -10,7 +10,11 @@ import { IconApiKey } from '../../../features/api-keys/components/api-key-icon';
 import { IconAuditLog } from '../../../features/audit/components/audit-icon';
 import { IconLookup } from '../../../features/lookup/components/lookup-icon';
 import { IconStock } from '../../../features/stock/components/stock-icon';
+import { IconCounts } from '../../../features/counts/components/counts-icon';
 import { IconPurchasing } from '../../../features/purchasing/components/purchasing-icon';
+import { IconSales } from '../../../features/sales/components/sales-icon';
+import { IconConsignment } from '../../../features/consignment/components/consignment-icon';
+import { IconSalesReports } from '../../../features/sales-reports/components/sales-reports-icon';
 import { IconVehicles } from '../../../features/vehicles/components/vehicle-icon';
 import { IconJobs } from '../../../features/jobs/components/jobs-icon';
 import { ShopSwitcher } from '../../../features/shops/components/shop-switcher';
@@ -43,7 +47,11 @@ function navFor(me: Me, shopId: string | null): NavItem[] {
       items.push({ to: paths.shop.catalogue.getHref(shopId), label: 'Catalogue', icon: <IconCatalogue /> });
     }
     if (canOn(abilityFor(me, shopId), 'read', 'Stock', { shopId })) items.push({ to: paths.shop.stock.getHref(shopId), label: 'Stock', icon: <IconStock /> });
+    if (canOn(abilityFor(me, shopId), 'read', 'StockCount', { shopId })) items.push({ to: paths.shop.counts.getHref(shopId), label: 'Counts', icon: <IconCounts /> });
     if (canOn(abilityFor(me, shopId), 'read', 'PurchaseOrder', { shopId })) items.push({ to: paths.shop.purchasingReorder.getHref(shopId), label: 'Purchasing', icon: <IconPurchasing /> });
+    if (canOn(abilityFor(me, shopId), 'read', 'Invoice', { shopId })) items.push({ to: paths.shop.salesInvoices.getHref(shopId), label: 'Sales', icon: <IconSales /> });
+    if (canOn(abilityFor(me, shopId), 'read', 'SalesReport', { shopId })) items.push({ to: paths.shop.salesReports.getHref(shopId), label: 'Sales reports', icon: <IconSalesReports /> });
+    if (canOn(abilityFor(me, shopId), 'read', 'Consignment', { shopId })) items.push({ to: paths.shop.consignment.getHref(shopId), label: 'Consignment', icon: <IconConsignment /> });
     if (canOn(abilityFor(me, shopId), 'read', 'Vehicle', { shopId })) items.push({ to: paths.shop.vehicles.getHref(shopId), label: 'Vehicles', icon: <IconVehicles /> });
     if (canOn(abilityFor(me, shopId), 'read', 'Job', { shopId })) {
       // A mechanic lands on their own jobs; everyone else on the board.

@@ -7,7 +7,9 @@ import { lineageQueryOptions, useLineage } from '../../../../../features/catalog
 import { partQueryOptions, usePart } from '../../../../../features/catalogue/api/get-part';
 import { PartView } from '../../../../../features/catalogue/components/part-view';
 import { PrintLabelsButton } from '../../../../../features/labels/components/print-labels-dialog';
+import { PartPurchasingPanel } from '../../../../../features/purchasing/components/part-purchasing-panel';
 import { PartStockPanel } from '../../../../../features/stock/components/part-stock-panel';
+import { PartPricePanel } from '../../../../../features/sales/components/part-price-panel';
 import { useCan } from '../../../../../lib/ability';
 import { ApiError, errorMessage } from '../../../../../lib/api-client';
 import { useDocumentTitle } from '../../../../../lib/use-document-title';
@@ -31,6 +33,9 @@ export default function PartRoute() {
   const lineage = useLineage(shopId, partId);
   const canEdit = useCan('update', 'Part', { shopId });
   const canReadStock = useCan('read', 'Stock', { shopId });
+  const canReadPurchasing = useCan('read', 'Supplier', { shopId });
+  // Sales (issue 12): the sell price for everyone who reads parts; cost and margin only where the API gives them.
+  const canSetListPrice = useCan('update', 'Settings', { shopId });
   useDocumentTitle(part.data ? `${part.data.part.number} · Catalogue` : 'Part');
 
   const back = (
@@ -67,6 +72,8 @@ export default function PartRoute() {
         lineage={{ data: lineage.data, isPending: lineage.isPending, error: lineage.error, refetch: () => void lineage.refetch() }}
       />
       {canReadStock && <PartStockPanel shopId={shopId} partId={p.id} />}
+      {canReadPurchasing && <PartPurchasingPanel shopId={shopId} partId={p.id} />}
+      <PartPricePanel shopId={shopId} partId={p.id} canSetListPrice={canSetListPrice} />
     </>
   );
 }

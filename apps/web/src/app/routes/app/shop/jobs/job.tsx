@@ -6,6 +6,8 @@ import { NotFoundContent } from '../../../../../components/errors/not-found';
 import { paths } from '../../../../../config/paths';
 import { jobQueryOptions, useJob } from '../../../../../features/jobs/api/get-job';
 import { JobView } from '../../../../../features/jobs/components/job-view';
+import { InvoiceFromJobButton } from '../../../../../features/sales/components/invoice-from-job-button';
+import { EstimatePanel } from '../../../../../features/estimates/components/estimate-panel';
 import { useCan } from '../../../../../lib/ability';
 import { ApiError, errorMessage } from '../../../../../lib/api-client';
 import { useMe } from '../../../../../lib/auth';
@@ -34,7 +36,10 @@ export default function JobRoute() {
   const issueJob = useCan('issue', 'Job', { shopId, assigneeIds });
   const issueStock = useCan('issue', 'Stock', { shopId });
   const signOff = useCan('signOff', 'Job', { shopId, assigneeIds });
-  const can = { work, hold: holdJob && holdStock, issue: issueJob && issueStock, signOff };
+  const assign = useCan('create', 'Job', { shopId });
+  const can = { work, hold: holdJob && holdStock, issue: issueJob && issueStock, signOff, assign };
+  // Sales (issue 12): those who may invoice get a button that drafts the job's invoice.
+  const invoice = useCan('create', 'Invoice', { shopId });
   useDocumentTitle(job.data ? `Job ${job.data.number} · ${job.data.title}` : 'Job');
 
   if (job.isPending) return <LoadingState label="Loading the job…" />;
@@ -51,11 +56,15 @@ export default function JobRoute() {
             Jobs
           </Link>
         </nav>
-        <h1 className="text-xl font-bold">
-          <span className="font-mono">Job {j.number}</span> · {j.title}
-        </h1>
+        <div className="flex flex-wrap items-end justify-between gap-4">
+          <h1 className="text-xl font-bold">
+            <span className="font-mono">Job {j.number}</span> · {j.title}
+          </h1>
+          {invoice && <InvoiceFromJobButton shopId={shopId} jobId={j.id} />}
+        </div>
       </div>
       <JobView shopId={shopId} job={j} can={can} pressureUnit={(settings.data?.pressureUnit ?? 'psi') as PressureUnit} meId={me?.user.id ?? null} formatMoney={formatMoney} />
+      <EstimatePanel shopId={shopId} jobId={j.id} assigneeIds={assigneeIds} />
     </>
   );
 }
