@@ -53,10 +53,19 @@ test('from the reorder list to a sent order to a partial receipt, with stock and
   await expect(page.getByText(/6 × CR-4411 into bin C-07 at £5\.00 each/)).toBeVisible();
   await page.screenshot({ path: '/tmp/purchasing-order.png', fullPage: true });
 
-  // Labels for what arrived (through the part labels: one label per part, copies chosen in the dialog).
+  // Labels for what arrived: one for each of the six units, each naming the bin it went to.
   await page.getByRole('button', { name: 'Print labels for what arrived' }).click();
-  await expect(page.getByRole('dialog').getByText('CR-4411')).toBeVisible();
-  await page.keyboard.press('Escape');
+  const labels = page.getByRole('dialog', { name: 'Print labels for what arrived' });
+  await expect(labels.getByText('CR-4411')).toBeVisible();
+  await expect(labels.getByText(/^6 labels on 1 /)).toBeVisible();
+  const made = page.waitForResponse((r) => r.url().endsWith('/labels/receipts') && r.request().method() === 'POST');
+  await labels.getByRole('button', { name: 'Make the PDF' }).click();
+  const pdf = await made;
+  expect(pdf.status()).toBe(200);
+  expect(pdf.headers()['content-type']).toContain('application/pdf');
+  expect(pdf.headers()['x-label-count']).toBe('6');
+  await expect(labels.getByText('The labels are ready.')).toBeVisible();
+  await labels.getByRole('button', { name: 'Done' }).click();
 
   const stock = await (await page.request.get(`/api/shops/${shopId}/stock/parts/${world.newPartId}`)).json();
   expect(JSON.stringify(stock)).toContain('"onHand":6');

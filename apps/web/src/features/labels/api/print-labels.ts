@@ -1,10 +1,10 @@
-import type { BinLabelsRequest, PartLabelsRequest } from '@tappet/contracts';
+import type { BinLabelsRequest, PartLabelsRequest, ReceiptLabelsRequest } from '@tappet/contracts';
 import { useMutation } from '@tanstack/react-query';
 import { env } from '../../../config/env';
 import { ApiError, errorFromResponse } from '../../../lib/api-client';
 
-/** What to print: chosen parts, or chosen bins (optionally with their contents). */
-export type LabelRequest = ({ kind: 'parts' } & PartLabelsRequest) | ({ kind: 'bins' } & BinLabelsRequest);
+/** What to print: chosen parts, chosen bins (optionally with their contents), or what receipts brought in. */
+export type LabelRequest = ({ kind: 'parts' } & PartLabelsRequest) | ({ kind: 'bins' } & BinLabelsRequest) | ({ kind: 'receipts' } & ReceiptLabelsRequest);
 
 /** A label PDF as received: the file, its name and the counts the API reports. */
 export interface LabelFile {
@@ -15,7 +15,7 @@ export interface LabelFile {
 }
 
 /**
- * POST /api/shops/:shopId/labels/{parts|bins}: the labels as a PDF. Not through `api` because
+ * POST /api/shops/:shopId/labels/{parts|bins|receipts}: the labels as a PDF. Not through `api` because
  * the answer is a file, not JSON; same headers (X-CSRF, JSON body) and the same errors.
  */
 export async function printLabels(shopId: string, request: LabelRequest): Promise<LabelFile> {

@@ -14,8 +14,14 @@ import { errorMessage } from '../../../lib/api-client';
 import { useLabelOptions } from '../api/get-label-options';
 import { usePrintLabels, type LabelFile } from '../api/print-labels';
 
-/** What the labels are for: chosen parts, or chosen bins. Each item carries what a person reads. */
-export type LabelSource = { kind: 'parts'; parts: { id: string; number: string }[] } | { kind: 'bins'; bins: { id: string; code: string }[] };
+/**
+ * What the labels are for: chosen parts, chosen bins, or what purchase receipts brought in (each
+ * label then names the bin it went to). Each item carries what a person reads.
+ */
+export type LabelSource =
+  | { kind: 'parts'; parts: { id: string; number: string }[] }
+  | { kind: 'bins'; bins: { id: string; code: string }[] }
+  | { kind: 'receipts'; receiptIds: string[]; parts: { id: string; number: string; quantity: number }[] };
 
 export interface PrintLabelsDialogProps {
   shopId: string;
@@ -34,11 +40,11 @@ const countWords = (format: LabelFormat, labels: number, pages: number) => {
 
 /** Shows a few of the chosen items by number, then how many more. */
 function ChosenList({ source }: { source: LabelSource }) {
-  const names = source.kind === 'parts' ? source.parts.map((p) => p.number) : source.bins.map((b) => b.code);
+  const names = source.kind === 'bins' ? source.bins.map((b) => b.code) : source.parts.map((p) => p.number);
   const shown = names.slice(0, 6);
   return (
     <p className="flex flex-wrap items-baseline gap-x-3 gap-y-1">
-      <span className="font-bold">{source.kind === 'parts' ? (names.length === 1 ? 'Part:' : `${names.length} parts:`) : names.length === 1 ? 'Bin:' : `${names.length} bins:`}</span>
+      <span className="font-bold">{source.kind !== 'bins' ? (names.length === 1 ? 'Part:' : `${names.length} parts:`) : names.length === 1 ? 'Bin:' : `${names.length} bins:`}</span>
       {shown.map((n) => (
         <PartNumber key={n}>{n}</PartNumber>
       ))}
@@ -60,13 +66,16 @@ export function PrintLabelsDialog({ shopId, source, open, onClose }: PrintLabels
   const [copies, setCopies] = useState('1');
   const [start, setStart] = useState('1');
   const [contents, setContents] = useState(true);
+  const [perUnit, setPerUnit] = useState(true);
   const [errors, setErrors] = useState<{ copies?: string; start?: string }>({});
   const [file, setFile] = useState<(LabelFile & { url: string }) | null>(null);
 
   const chosenFormat: LabelFormat | null = format ?? options.data?.defaultFormat ?? null;
-  const count = source.kind === 'parts' ? source.parts.length : source.bins.length;
+  const count = source.kind === 'bins' ? source.bins.length : source.parts.length;
   const perPage = chosenFormat ? labelsPerPage(chosenFormat) : 1;
-  const tooMany = source.kind === 'parts' ? count > maxLabelPartsPerRequest : count > maxLabelBinsPerRequest;
+  const receiptLabels = source.kind === 'receipts' ? (perUnit ? source.parts.reduce((n, p) => n + p.quantity, 0) : source.receiptIds.length) : 0;
+  const tooMany =
+    source.kind === 'parts' ? count > maxLabelPartsPerRequest : source.kind === 'bins' ? count > maxLabelBinsPerRequest : receiptLabels > maxLabelsPerRequest;
   const copiesNumber = Number(copies);
   const startNumber = Number(start);
 
@@ -76,11 +85,12 @@ export function PrintLabelsDialog({ shopId, source, open, onClose }: PrintLabels
   }, [file]);
 
   const summary = useMemo(() => {
-    if (!chosenFormat || source.kind !== 'parts' || !Number.isInteger(copiesNumber) || copiesNumber < 1) return null;
-    const labels = count * copiesNumber;
+    if (!chosenFormat || source.kind === 'bins') return null;
+    if (source.kind === 'parts' && (!Number.isInteger(copiesNumber) || copiesNumber < 1)) return null;
+    const labels = source.kind === 'parts' ? count * copiesNumber : receiptLabels;
     const skip = perPage > 1 && Number.isInteger(startNumber) && startNumber >= 1 && startNumber <= perPage ? startNumber - 1 : 0;
     return countWords(chosenFormat, labels, labelPageCount(chosenFormat, labels, skip));
-  }, [chosenFormat, source.kind, count, copiesNumber, perPage, startNumber]);
+  }, [chosenFormat, source.kind, count, copiesNumber, perPage, startNumber, receiptLabels]);
 
   const submit = (event: FormEvent) => {
     event.preventDefault();
@@ -97,7 +107,9 @@ export function PrintLabelsDialog({ shopId, source, open, onClose }: PrintLabels
     const request =
       source.kind === 'parts'
         ? { kind: 'parts' as const, partIds: source.parts.map((p) => p.id), copies: copiesNumber, format: chosenFormat, skip }
-        : { kind: 'bins' as const, binIds: source.bins.map((b) => b.id), contents, format: chosenFormat, skip };
+        : source.kind === 'bins'
+          ? { kind: 'bins' as const, binIds: source.bins.map((b) => b.id), contents, format: chosenFormat, skip }
+          : { kind: 'receipts' as const, receiptIds: source.receiptIds, perUnit, format: chosenFormat, skip };
     print.mutate(request, { onSuccess: (made) => setFile({ ...made, url: URL.createObjectURL(made.blob) }) });
   };
 
@@ -125,7 +137,7 @@ export function PrintLabelsDialog({ shopId, source, open, onClose }: PrintLabels
   );
 
   return (
-    <Dialog open={open} onClose={onClose} title={source.kind === 'parts' ? 'Print part labels' : 'Print bin labels'} description={<ChosenList source={source} />} footer={footer}>
+    <Dialog open={open} onClose={onClose} title={source.kind === 'bins' ? 'Print bin labels' : source.kind === 'receipts' ? 'Print labels for what arrived' : 'Print part labels'} description={<ChosenList source={source} />} footer={footer}>
       {options.isPending ? (
         <LoadingState label="Loading the label formats…" />
       ) : options.isError ? (
@@ -163,6 +175,12 @@ export function PrintLabelsDialog({ shopId, source, open, onClose }: PrintLabels
               onChange={(event) => setStart(event.target.value)}
             />
           )}
+          {source.kind === 'receipts' && (
+            <label className="flex min-h-touch items-center gap-3">
+              <input type="checkbox" checked={perUnit} onChange={(event) => setPerUnit(event.target.checked)} className="h-5 w-5 accent-accent" />
+              One label for each unit received (otherwise one for each line received)
+            </label>
+          )}
           {source.kind === 'bins' && (
             <label className="flex min-h-touch items-center gap-3">
               <input type="checkbox" checked={contents} onChange={(event) => setContents(event.target.checked)} className="h-5 w-5 accent-accent" />
@@ -174,7 +192,9 @@ export function PrintLabelsDialog({ shopId, source, open, onClose }: PrintLabels
             <p role="alert" className="font-bold">
               {source.kind === 'parts'
                 ? `${count} parts are chosen; print labels for at most ${maxLabelPartsPerRequest} at a time. Clear some of the choice and print the rest afterwards.`
-                : `${count} bins are chosen; print labels for at most ${maxLabelBinsPerRequest} at a time.`}
+                : source.kind === 'bins'
+                  ? `${count} bins are chosen; print labels for at most ${maxLabelBinsPerRequest} at a time.`
+                  : `That makes ${receiptLabels} labels; print at most ${maxLabelsPerRequest} at a time (one for each line received instead).`}
             </p>
           )}
           {print.isError && (

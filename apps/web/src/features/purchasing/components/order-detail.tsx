@@ -198,6 +198,8 @@ export interface ArrivedPart {
   partId: string;
   partNumber: string;
   quantity: number;
+  /** The receipts (one per line and bin) that brought it in. */
+  receiptIds: string[];
 }
 
 /**
@@ -238,8 +240,10 @@ export function OrderDetail({ shopId, orderId, labelsAction }: { shopId: string;
     const line = o.lines.find((l) => l.id === r.lineId);
     if (!line) continue;
     const seen = arrived.find((a) => a.partId === line.partId);
-    if (seen) seen.quantity += r.quantity;
-    else arrived.push({ partId: line.partId, partNumber: line.partNumber, quantity: r.quantity });
+    if (seen) {
+      seen.quantity += r.quantity;
+      seen.receiptIds.push(r.id);
+    } else arrived.push({ partId: line.partId, partNumber: line.partNumber, quantity: r.quantity, receiptIds: [r.id] });
   }
 
   return (

@@ -17,7 +17,13 @@ export default function OrderRoute() {
         orderId={orderId}
         labelsAction={
           canPrint
-            ? (arrived) => <PrintLabelsButton shopId={shopId} source={{ kind: 'parts', parts: arrived.map((a) => ({ id: a.partId, number: a.partNumber })) }} label="Print labels for what arrived" />
+            ? (arrived) => (
+                <PrintLabelsButton
+                  shopId={shopId}
+                  source={{ kind: 'receipts', receiptIds: arrived.flatMap((a) => a.receiptIds), parts: arrived.map((a) => ({ id: a.partId, number: a.partNumber, quantity: a.quantity })) }}
+                  label="Print labels for what arrived"
+                />
+              )
             : undefined
         }
       />
