@@ -840,7 +840,7 @@ export async function openSpecialOrders(reader: EntityManager, shopId: string): 
  * Moves a special order on (ordered, received, cancelled) inside the caller's db.write: for
  * purchasing to call when it orders or receives the part. 404 for an order not in the shop.
  */
-export async function setSpecialOrderStatus(manager: EntityManager, shopId: string, orderId: string, status: 'ordered' | 'received' | 'cancelled', actor: AuditActor, at: Date): Promise<void> {
+export async function setSpecialOrderStatus(manager: EntityManager, shopId: string, orderId: string, status: 'open' | 'ordered' | 'received' | 'cancelled', actor: AuditActor, at: Date): Promise<void> {
   const row = await shopScoped(manager, JobSpecialOrderEntity, shopId).findOne({ id: orderId });
   if (!row) throw notFound('No such special order in this shop.');
   await manager.update(JobSpecialOrderEntity, { shopId, id: orderId }, { status, updatedAt: at });

@@ -284,6 +284,26 @@ export function createOrdersService(deps: { db: Database; clock: Clock; mailer: 
     return rows.map((r) => r.email);
   }
 
+
+  /**
+   * After an order is cancelled or closed short: a job's special order it carried, not yet fully
+   * received and on no other live order, is open again, so the job shows it waiting to be bought.
+   */
+  async function reopenSpecialOrders(manager: EntityManager, shopId: string, orderId: string, actor: AuditActor): Promise<void> {
+    for (const l of await linesOf(manager, shopId, orderId)) {
+      if (!l.specialOrderId) continue;
+      const special = await shopScoped(manager, JobSpecialOrderEntity, shopId).findOne({ id: l.specialOrderId });
+      if (special?.status !== 'ordered') continue;
+      const [others] = await manager.query<Array<{ live: number; received: number }>>(
+        `SELECT SUM(CASE WHEN o.status IN (${LIVE_ORDER_STATES.map(() => '?').join(', ')}) THEN 1 ELSE 0 END) AS live, COALESCE(SUM(l.received_quantity), 0) AS received
+         FROM purchase_order_lines l JOIN purchase_orders o ON o.shop_id = l.shop_id AND o.id = l.order_id
+         WHERE l.shop_id = ? AND l.special_order_id = ?`,
+        [...LIVE_ORDER_STATES, shopId, special.id],
+      );
+      if (Number(others?.live ?? 0) === 0 && Number(others?.received ?? 0) < special.quantity) await setSpecialOrderStatus(manager, shopId, special.id, 'open', actor, clock.now());
+    }
+  }
+
   return {
     async list(shopId: string, query: { status?: PurchaseOrderStatus; supplierId?: string }) {
       const rows = await shopScoped(db.reader, PurchaseOrderEntity, shopId).find({ ...(query.status ? { status: query.status } : {}), ...(query.supplierId ? { supplierId: query.supplierId } : {}) }, { number: 'DESC' });
@@ -454,6 +474,7 @@ export function createOrdersService(deps: { db: Database; clock: Clock; mailer: 
         const o = await orderRow(manager, shopId, orderId);
         requireStatus(o, ['draft', 'awaiting_approval', 'approved', 'sent'], 'cancelled');
         await transition(manager, o, { status: 'cancelled', closedReason: reason, closedAt: clock.now() });
+        await reopenSpecialOrders(manager, shopId, orderId, actor);
         await audit(manager, shopId, actor, 'purchase_order.cancelled', orderId, { status: 'cancelled', reason });
       });
       return view(db.reader, shopId, orderId);
@@ -474,6 +495,7 @@ export function createOrdersService(deps: { db: Database; clock: Clock; mailer: 
           }
         }
         await transition(manager, o, { status: 'closed', closedReason: reason, closedAt: clock.now() });
+        await reopenSpecialOrders(manager, shopId, orderId, actor);
         await audit(manager, shopId, actor, 'purchase_order.back_order_closed', orderId, { status: 'closed', reason, quantityClosed: closed });
       });
       return view(db.reader, shopId, orderId);
