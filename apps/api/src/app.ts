@@ -11,7 +11,7 @@ import { staticRouter } from './http/static';
 import { systemClock, type Clock } from './lib/clock';
 import type { Mailer } from './lib/mailer';
 import type { RateLimitRule, RateLimitStore } from './lib/rate-limiter';
-import { mailRequestLimit } from './middleware/mail-rate-limit';
+import { mailRequestLimit } from './middleware/rate-limits';
 import { authenticate } from './middleware/authenticate';
 import { csrfProtection } from './middleware/csrf';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
@@ -90,7 +90,7 @@ export interface AppDeps {
   logger?: Logger;
   authLimits?: Partial<AuthLimits>;
   rateLimitStore?: RateLimitStore;
-  /** Requests that send e-mail, per person and shop and hour (default in middleware/mail-rate-limit.ts). */
+  /** Requests that send e-mail, per person and shop and hour (default in middleware/rate-limits.ts). */
   mailRequestLimit?: RateLimitRule;
   /** The Stripe SDK client; default one built from env (the local fake outside production). */
   stripe?: Stripe;
@@ -211,7 +211,7 @@ export function createApp(deps: AppDeps): Express {
   api.post(mailSendingRoutes, mailRequestLimit({ clock, store: deps.rateLimitStore, rule: deps.mailRequestLimit }));
   api.use('/auth', authRouter({ env, auth }));
   // The customer's pay link from an invoice e-mail (no account; sales, issue 12).
-  api.use('/pay', payLinkRouter({ sales }));
+  api.use('/pay', payLinkRouter({ sales, clock, store: deps.rateLimitStore }));
   api.use('/me', meRouter({ auth }));
   api.use('/invitations', invitationsRouter({ env, staff, auth }));
   // Before every shop route: billing state brought up to date, support grants noted (and audited).

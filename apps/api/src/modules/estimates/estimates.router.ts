@@ -1,4 +1,4 @@
-import { Router, type Request, type RequestHandler } from 'express';
+import { Router, type Request } from 'express';
 import {
   approveEstimateSchema,
   createEstimateSchema,
@@ -12,8 +12,8 @@ import {
   viewEstimateApprovalSchema,
 } from '@tappet/contracts';
 import type { Clock } from '../../lib/clock';
-import { HttpError } from '../../lib/http-error';
-import { RateLimiter, type RateLimitRule, type RateLimitStore } from '../../lib/rate-limiter';
+import type { RateLimitRule, RateLimitStore } from '../../lib/rate-limiter';
+import { addressRateLimit } from '../../middleware/rate-limits';
 import { auditActorOf } from '../../middleware/authenticate';
 import { authorize, shopOf } from '../../middleware/tenant-context';
 import { bodyOf, validate } from '../../middleware/validate';
@@ -86,18 +86,8 @@ export const defaultApprovalLimit: RateLimitRule = { limit: 60, windowMs: 15 * 6
  */
 export function estimateApprovalRouter(deps: { estimates: EstimatesService; clock: Clock; store?: RateLimitStore; limit?: RateLimitRule }): Router {
   const { estimates } = deps;
-  const limiter = new RateLimiter(deps.limit ?? defaultApprovalLimit, deps.clock, deps.store);
   const router = Router();
-  const limited: RequestHandler = (req, _res, next) => {
-    const key = `estimate-approval:${req.ip ?? 'unknown'}`;
-    const retryAfter = limiter.retryAfterSeconds(key);
-    if (retryAfter > 0) {
-      const minutes = Math.ceil(retryAfter / 60);
-      return next(new HttpError(429, 'rate_limited', `Too many attempts. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`, { retryAfterSeconds: retryAfter }, { 'Retry-After': String(retryAfter) }));
-    }
-    limiter.record(key);
-    next();
-  };
+  const limited = addressRateLimit({ name: 'estimate-approval', rule: deps.limit ?? defaultApprovalLimit, clock: deps.clock, store: deps.store });
   router.post('/view', limited, validate({ body: viewEstimateApprovalSchema }), async (req, res) => {
     res.json(await estimates.publicView(bodyOf(viewEstimateApprovalSchema, req).token));
   });

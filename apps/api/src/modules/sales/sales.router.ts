@@ -21,6 +21,9 @@ import {
 import { formatMoney } from '@tappet/domain';
 import { subjectOf } from '@tappet/permissions';
 import { forbidden } from '../../lib/http-error';
+import type { Clock } from '../../lib/clock';
+import type { RateLimitRule, RateLimitStore } from '../../lib/rate-limiter';
+import { addressRateLimit } from '../../middleware/rate-limits';
 import { auditActorOf } from '../../middleware/authenticate';
 import { authorize, shopOf } from '../../middleware/tenant-context';
 import { bodyOf, validate } from '../../middleware/validate';
@@ -175,8 +178,13 @@ function page(title: string, body: string): string {
  * Checkout session for what is due; `/done` is where Stripe sends the customer back. The payment
  * itself is recorded only from the signed webhook.
  */
-export function payLinkRouter(deps: { sales: SalesService }): Router {
+/** Visits to customers' pay links per address. */
+export const defaultPayLinkLimit: RateLimitRule = { limit: 60, windowMs: 15 * 60_000 };
+
+export function payLinkRouter(deps: { sales: SalesService; clock: Clock; store?: RateLimitStore; limit?: RateLimitRule }): Router {
   const router = Router();
+  // Each visit may open a Stripe Checkout session: a per-address limit keeps a script from piling them up.
+  router.use(addressRateLimit({ name: 'pay-link', rule: deps.limit ?? defaultPayLinkLimit, clock: deps.clock, store: deps.store }));
   router.get('/:token', validate({ params: payTokenParamsSchema }), async (req, res) => {
     const result = await deps.sales.payLink(req.params['token'] as string);
     if ('url' in result) {

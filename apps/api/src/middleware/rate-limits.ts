@@ -23,12 +23,28 @@ export function mailRequestLimit(deps: { clock: Clock; store?: RateLimitStore; r
     if (!who) return next();
     const key = `mail:${String(req.params['shopId'] ?? 'platform')}:${who}`;
     const wait = limiter.retryAfterSeconds(key);
-    if (wait > 0) {
-      const minutes = Math.ceil(wait / 60);
-      return next(
-        new HttpError(429, 'rate_limited', `Too many e-mails sent in the last hour. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`, { retryAfterSeconds: wait }, { 'Retry-After': String(wait) }),
-      );
-    }
+    if (wait > 0) return next(rateLimitedError(wait, 'e-mails sent in the last hour'));
+    limiter.record(key);
+    next();
+  };
+}
+
+/** The 429 every limiter answers with: how long to wait, in words and in Retry-After. */
+export function rateLimitedError(retryAfterSeconds: number, what = 'attempts'): HttpError {
+  const minutes = Math.ceil(retryAfterSeconds / 60);
+  return new HttpError(429, 'rate_limited', `Too many ${what}. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`, { retryAfterSeconds }, { 'Retry-After': String(retryAfterSeconds) });
+}
+
+/**
+ * A per-address limit for routes anyone may call without an account (the customer's estimate
+ * approval and invoice pay links): every request counts, under `name` and the client address.
+ */
+export function addressRateLimit(deps: { name: string; rule: RateLimitRule; clock: Clock; store?: RateLimitStore }): RequestHandler {
+  const limiter = new RateLimiter(deps.rule, deps.clock, deps.store ?? new MemoryRateLimitStore());
+  return (req, _res, next) => {
+    const key = `${deps.name}:${req.ip ?? 'unknown'}`;
+    const wait = limiter.retryAfterSeconds(key);
+    if (wait > 0) return next(rateLimitedError(wait));
     limiter.record(key);
     next();
   };

@@ -4,6 +4,7 @@ import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mailSendingRoutes } from '../../app';
+import { defaultPayLinkLimit } from '../../modules/sales/sales.router';
 import { createShopWithUsers } from '../../modules/test-support/test-support.service';
 import { createTestContext, csrf, seedShop, signedInAgent, type TestContext } from '../../test-support/test-app';
 
@@ -47,5 +48,13 @@ describe('the e-mail allowance', () => {
       // A route nobody serves falls through to "No such API route."; a served one answers itself.
       expect(res.body.error?.message, path).not.toBe('No such API route.');
     }
+  });
+
+  it('limits visits to customers\' pay links per address, whatever the token', async () => {
+    const visit = () => request(ctx.app).get(`/api/pay/${randomUUID().replace(/-/g, '')}`);
+    for (let i = 0; i < defaultPayLinkLimit.limit; i++) expect((await visit()).status).not.toBe(429);
+    const refused = await visit();
+    expect(refused.status).toBe(429);
+    expect(refused.body.error.code).toBe('rate_limited');
   });
 });
