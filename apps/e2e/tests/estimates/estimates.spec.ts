@@ -148,8 +148,8 @@ test('the owner agrees consignment terms, settles the sale, prints the settlemen
   await settle.getByLabel('Sale price').fill('12345.00');
   await settle.getByRole('button', { name: 'Settle the sale…' }).click();
   await page.getByRole('alertdialog', { name: 'Settle this sale?' }).getByRole('button', { name: 'Settle', exact: true }).click();
-  // 12 345.00 − 12.5 % (1 543.125 → 1 543.12, half to even) = 10 801.88, no approved work.
-  await expect(page.getByTestId('payout')).toHaveText('£10,801.88');
+  // 12 345.00 − 12.5 % (1 543.125 → 1 543.13, half away from zero: decision 015) = 10 801.87, no approved work.
+  await expect(page.getByTestId('payout')).toHaveText('£10,801.87');
   await expectNoSeriousViolations(page, 'consignment settlement');
 
   const pdfHref = await page.getByRole('link', { name: 'Settlement PDF' }).getAttribute('href');

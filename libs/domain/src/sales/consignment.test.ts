@@ -8,10 +8,10 @@ describe('consignmentSettlement', () => {
     // Worked by hand (pen and paper), GBP, amounts in pence:
     //   sale price                           £12,345.00 = 1 234 500
     //   commission 12.5 %: 1 234 500 × 0.125 = 154 312.5 pence, an exact tie;
-    //     half to even (decision 007) keeps the even neighbour   →   154 312 (£1,543.12)
+    //     a settlement is a document the consignor reads: half away from zero (decision 015) → 154 313 (£1,543.13)
     //   approved work: job 1  £480.00 =  48 000
     //                  job 2  £234.56 =  23 456          total   →    71 456 (£714.56)
-    //   payout: 1 234 500 − 154 312 = 1 080 188; 1 080 188 − 71 456 = 1 008 732 (£10,087.32)
+    //   payout: 1 234 500 − 154 313 = 1 080 187; 1 080 187 − 71 456 = 1 008 731 (£10,087.31)
     const s = consignmentSettlement({
       salePriceMinor: 1_234_500,
       commission: { kind: 'percent', milliPercent: 12_500 },
@@ -20,7 +20,7 @@ describe('consignmentSettlement', () => {
         { label: 'Job 2', amountMinor: 23_456 },
       ],
     });
-    expect(s).toEqual({ salePriceMinor: 1_234_500, commissionMinor: 154_312, workMinor: 71_456, payoutMinor: 1_008_732, consignorOwesMinor: 0 });
+    expect(s).toEqual({ salePriceMinor: 1_234_500, commissionMinor: 154_313, workMinor: 71_456, payoutMinor: 1_008_731, consignorOwesMinor: 0 });
   });
 
   it('takes a fixed commission as agreed, whatever the sale price', () => {
@@ -45,18 +45,18 @@ describe('consignmentSettlement', () => {
 
 describe('consignmentCommission', () => {
   it('rounds exact ties to even and others to nearest', () => {
-    expect(consignmentCommission(1_234_500, { kind: 'percent', milliPercent: 12_500 })).toBe(154_312); // 154 312.5 → even below
-    expect(consignmentCommission(1_234_700, { kind: 'percent', milliPercent: 12_500 })).toBe(154_338); // 154 337.5 → even above
+    expect(consignmentCommission(1_234_500, { kind: 'percent', milliPercent: 12_500 })).toBe(154_313); // 154 312.5 → away from zero
+    expect(consignmentCommission(1_234_700, { kind: 'percent', milliPercent: 12_500 })).toBe(154_338); // 154 337.5 → away from zero
     expect(consignmentCommission(999, { kind: 'percent', milliPercent: 15_000 })).toBe(150); // 149.85 → 150
     expect(consignmentCommission(500_000, { kind: 'percent', milliPercent: 0 })).toBe(0);
     expect(consignmentCommission(500_000, { kind: 'percent', milliPercent: 100_000 })).toBe(500_000);
   });
 
-  it('agrees with decimal.js ROUND_HALF_EVEN for any sale and percentage', () => {
-    // Independent library: decimal.js, sale × percent / 100 rounded with ROUND_HALF_EVEN.
+  it('agrees with decimal.js ROUND_HALF_UP (ties away from zero) for any sale and percentage', () => {
+    // Independent library: decimal.js, sale × percent / 100 rounded with ROUND_HALF_UP (ties away from zero).
     fc.assert(
       fc.property(fc.integer({ min: 0, max: 10_000_000_000 }), fc.integer({ min: 0, max: 100_000 }), (sale, milli) => {
-        const expected = new Decimal(sale).mul(milli).div(100_000).toDecimalPlaces(0, Decimal.ROUND_HALF_EVEN).toNumber();
+        const expected = new Decimal(sale).mul(milli).div(100_000).toDecimalPlaces(0, Decimal.ROUND_HALF_UP).toNumber();
         expect(consignmentCommission(sale, { kind: 'percent', milliPercent: milli })).toBe(expected);
       }),
     );

@@ -1,6 +1,7 @@
 // Consignment settlements (issue 12): what the shop pays a consignor after selling their vehicle.
 // Pure maths in integer minor units (decision 007); no I/O.
-import { divideRoundHalfEven, sumMinorUnits, toSafeMinorUnits } from '../money/money';
+import { sumMinorUnits, toSafeMinorUnits } from '../money/money';
+import { divideRoundHalfAway } from './rounding';
 
 export const consignmentCommissionKinds = ['percent', 'fixed'] as const;
 export type ConsignmentCommissionKind = (typeof consignmentCommissionKinds)[number];
@@ -40,7 +41,8 @@ function assertAmount(name: string, minor: number): void {
 
 /**
  * The shop's commission on a sale. A percentage is `sale × milliPercent / 100 000`, rounded once
- * to minor units with ties to even (decision 007): 12.5 % of 1 234 500 is 154 312.5 → 154 312.
+ * to minor units with ties away from zero, like every document a customer reads (decision 015):
+ * 12.5 % of 1 234 500 is 154 312.5 → 154 313.
  * A fixed commission is the agreed amount, whatever the sale price.
  */
 export function consignmentCommission(salePriceMinor: number, commission: ConsignmentCommission): number {
@@ -51,7 +53,7 @@ export function consignmentCommission(salePriceMinor: number, commission: Consig
   }
   const m = commission.milliPercent;
   if (!Number.isSafeInteger(m) || m < 0 || m > 100_000) throw new RangeError(`A commission percentage is 0 to 100 (got ${m / 1000}).`);
-  return toSafeMinorUnits(divideRoundHalfEven(BigInt(salePriceMinor) * BigInt(m), 100_000n));
+  return toSafeMinorUnits(divideRoundHalfAway(BigInt(salePriceMinor) * BigInt(m), 100_000n));
 }
 
 /**

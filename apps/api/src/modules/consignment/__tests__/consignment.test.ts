@@ -108,12 +108,12 @@ describe('consignment settlement', () => {
     expect((await viewer.post(url(`/vehicles/${vehicleId}/settlement`)).set(csrf).send({ salePriceMinor: 1_234_500, soldOn: '2026-01-20' })).status).toBe(403);
     const settled = await owner.post(url(`/vehicles/${vehicleId}/settlement`)).set(csrf).send({ salePriceMinor: 1_234_500, soldOn: '2026-01-20', note: 'Sold to a private buyer' });
     expect(settled.status, JSON.stringify(settled.body)).toBe(201);
-    // By hand: sale 1 234 500; commission 12.5 % = 154 312.5 → 154 312 (tie, half to even);
-    //   work 36 000 + 23 456 = 59 456; payout 1 234 500 − 154 312 − 59 456 = 1 020 732.
-    expect(settled.body.settlement).toMatchObject({ salePriceMinor: 1_234_500, commissionMinor: 154_312, workMinor: 59_456, payoutMinor: 1_020_732, consignorOwesMinor: 0, payout: null });
+    // By hand: sale 1 234 500; commission 12.5 % = 154 312.5 → 154 313 (tie, away from zero: decision 015);
+    //   work 36 000 + 23 456 = 59 456; payout 1 234 500 − 154 313 − 59 456 = 1 020 731.
+    expect(settled.body.settlement).toMatchObject({ salePriceMinor: 1_234_500, commissionMinor: 154_313, workMinor: 59_456, payoutMinor: 1_020_731, consignorOwesMinor: 0, payout: null });
     expect(settled.body.settlement.reference).toMatch(/^CS-\d{6}$/);
     const audit = await ctx.db.reader.findOneByOrFail(AuditEventEntity, { entityId: settled.body.settlement.id, action: 'consignment.settled' });
-    expect(audit.changes).toMatchObject({ payoutMinor: { after: 1_020_732 } });
+    expect(audit.changes).toMatchObject({ payoutMinor: { after: 1_020_731 } });
 
     expect((await owner.post(url(`/vehicles/${vehicleId}/settlement`)).set(csrf).send({ salePriceMinor: 1, soldOn: '2026-01-20' })).status).toBe(409);
     expect((await owner.put(url(`/vehicles/${vehicleId}/terms`)).set(csrf).send({ commissionKind: 'fixed', commissionFixedMinor: 1, agreedOn: '2026-01-10' })).status).toBe(409);
@@ -135,6 +135,6 @@ describe('consignment settlement', () => {
     expect(paid.body.settlement.payout).toMatchObject({ paidOn: '2026-01-22', method: 'bank_transfer', reference: 'HW-CS-1' });
     const again = await owner.post(url(`/vehicles/${vehicleId}/settlement/payout`)).set(csrf).send({ paidOn: '2026-01-23', method: 'cash', reference: 'again' });
     expect(again.status).toBe(409);
-    expect((await owner.get(url('/vehicles'))).body.vehicles[0]).toMatchObject({ paid: true, payoutMinor: 1_020_732 });
+    expect((await owner.get(url('/vehicles'))).body.vehicles[0]).toMatchObject({ paid: true, payoutMinor: 1_020_731 });
   });
 });
