@@ -24,6 +24,7 @@ import { memoryPartSearchIndex } from './modules/lookup/memory-part-search-index
 import { stockRouter } from './modules/stock/stock.router';
 import { createStockService } from './modules/stock/stock.service';
 import { freeStockByPart } from './modules/stock/stock.queries';
+import { partIdOfGtin } from './modules/barcodes/barcodes.service';
 import { createImportService } from './modules/catalogue/imports/import.service';
 import { createAuthService, type AuthLimits } from './modules/auth/auth.service';
 import { meRouter } from './modules/me/me.router';
@@ -118,7 +119,7 @@ export function createApp(deps: AppDeps): Express {
   const auth = createAuthService({ db, env, clock, mailer, limits: deps.authLimits, rateLimitStore: deps.rateLimitStore, onMailError: (err) => logger.error({ err }, 'e-mail failed') });
   const shops = createShopsService({ db, clock });
   const catalogue = createCatalogueService({ db, clock });
-  const lookup = createLookupService({ index: memoryPartSearchIndex({ reader: () => db.reader, versionOf: (shopId) => catalogue.graphOf(shopId) }), graphOf: (shopId) => catalogue.graphOf(shopId), stockOf: (shopId, partIds) => freeStockByPart(db.reader, shopId, partIds) });
+  const lookup = createLookupService({ index: memoryPartSearchIndex({ reader: () => db.reader, versionOf: (shopId) => catalogue.graphOf(shopId) }), graphOf: (shopId) => catalogue.graphOf(shopId), stockOf: (shopId, partIds) => freeStockByPart(db.reader, shopId, partIds), partOfBarcode: (shopId, gtin14) => partIdOfGtin(db.reader, shopId, gtin14) });
   const stock = createStockService({ db, clock, graphOf: (shopId) => catalogue.graphOf(shopId) });
   const imports = createImportService({ db, clock, catalogue });
   const staff = createStaffService({ db, env, clock, mailer, rateLimitStore: deps.rateLimitStore, onMailError: (err) => logger.error({ err }, 'e-mail failed') });

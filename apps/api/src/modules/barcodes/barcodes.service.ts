@@ -1,4 +1,5 @@
 import { randomUUID } from 'node:crypto';
+import type { EntityManager } from 'typeorm';
 import { validateGs1 } from '@tappet/domain';
 import type { BarcodeLookup, PartBarcode } from '@tappet/contracts';
 import { shopScoped } from '../../db/tenant-repository';
@@ -24,6 +25,11 @@ export function checkGtin(code: string): { kind: GtinKind; gtin14: string } {
   }
   if (result.kind === 'SSCC-18') throw badRequest('That is a shipping container code (SSCC), not a product barcode.', { reason: 'not_a_gtin' });
   return { kind: result.kind, gtin14: code.padStart(14, '0') };
+}
+
+/** The part a GTIN (in its 14-digit form) is attached to in the shop, or null: for the lookup. */
+export async function partIdOfGtin(reader: EntityManager, shopId: string, gtin14: string): Promise<string | null> {
+  return (await shopScoped(reader, PartBarcodeEntity, shopId).findOne({ gtin14 }))?.partId ?? null;
 }
 
 const view = (row: PartBarcodeRow): PartBarcode => ({ id: row.id, partId: row.partId, code: row.code, kind: checkGtin(row.code).kind, createdAt: isoOf(row.createdAt) });

@@ -1,5 +1,5 @@
 import Fuse from 'fuse.js';
-import { foldedTyposWithin, foldLookalikes, lineageReason, matchDescription, matchNumber, mergeHits, MIN_SUBSTRING_QUERY, normalisePartNumber, type LineageGraph, type SearchHit } from '@tappet/domain';
+import { foldedTyposWithin, foldLookalikes, lineageReason, validateGs1, matchDescription, matchNumber, mergeHits, MIN_SUBSTRING_QUERY, normalisePartNumber, type LineageGraph, type SearchHit } from '@tappet/domain';
 import type { PartSearchQueryParsed, PartSearchResponse, StockSummary } from '@tappet/contracts';
 import type { PartSearchFilters, PartSearchIndex, SearchablePart } from './part-search-index';
 
@@ -43,6 +43,8 @@ export function createLookupService(deps: {
   graphOf: (shopId: string) => Promise<LineageGraph>;
   /** Stock of each part (the stock module's freeStockByPart); results carry it when given. */
   stockOf?: (shopId: string, partIds: string[]) => Promise<Map<string, StockSummary>>;
+  /** The part a supplier barcode (a valid GTIN, 14 digits) is attached to, if any (issue 7). */
+  partOfBarcode?: (shopId: string, gtin14: string) => Promise<string | null>;
 }) {
   const { index, graphOf } = deps;
 
@@ -80,6 +82,12 @@ export function createLookupService(deps: {
         q.length >= MIN_SUBSTRING_QUERY ? index.byDescription(shopId, q, filters, TYPO_CANDIDATES) : Promise.resolve([]),
       ]);
 
+      // A scanned supplier barcode (EAN/UPC/GTIN with a valid GS1 check digit) names its part exactly.
+      const digits = q.replace(/[\s-]/g, '');
+      const gs1 = /^\d{8}$|^\d{12,14}$/.test(digits) ? validateGs1(digits) : null;
+      const barcodePartId = gs1?.ok && deps.partOfBarcode ? await deps.partOfBarcode(shopId, digits.padStart(14, '0')) : null;
+      const exactAll = barcodePartId ? [...exactIds, barcodePartId] : exactIds;
+
       // Only candidates that can match are loaded: numbers within the typo tolerance (also without
       // their prefix), descriptions whose words all meet the typed words.
       const folded = foldLookalikes(key);
@@ -87,9 +95,9 @@ export function createLookupService(deps: {
       const descriptionIds = descriptionCandidates.filter((c) => matchDescription(q, c.description) !== null).map((c) => c.id);
 
       // Lineage starts from exact hits whatever the filters; the filters then apply to every result.
-      const exactParts = await index.load(shopId, exactIds, {});
-      const lineageHits = await relatives(shopId, exactParts.filter((p) => matchNumber(q, p.numbers)?.match === 'exact'));
-      const ids = [...new Set([...exactIds, ...lineageHits.map((h) => h.partId), ...numberIds, ...typoIds, ...descriptionIds])];
+      const exactParts = await index.load(shopId, exactAll, {});
+      const lineageHits = await relatives(shopId, exactParts.filter((p) => p.id === barcodePartId || matchNumber(q, p.numbers)?.match === 'exact'));
+      const ids = [...new Set([...exactAll, ...lineageHits.map((h) => h.partId), ...numberIds, ...typoIds, ...descriptionIds])];
       const parts = await index.load(shopId, ids, filters);
       const byId = new Map(parts.map((p) => [p.id, p]));
 
@@ -101,6 +109,7 @@ export function createLookupService(deps: {
       const tieBreak = new Map(fuse.search(q).map((r) => [r.item.id, r.score ?? 1]));
 
       const hits: SearchHit[] = lineageHits.filter((h) => byId.has(h.partId));
+      if (barcodePartId && byId.has(barcodePartId)) hits.push({ partId: barcodePartId, match: 'exact', reason: `supplier barcode ${digits}`, rank: 0 });
       for (const part of parts) {
         const number = matchNumber(q, part.numbers);
         if (number) hits.push({ partId: part.id, ...number, tieBreak: tieBreak.get(part.id) });

@@ -72,4 +72,20 @@ describe('supplier barcodes', () => {
     const events = await w.ctx.db.reader.find(AuditEventEntity, { where: { shopId: w.shopId, entityId: a } });
     expect(events.map((e) => e.action)).toEqual(expect.arrayContaining(['part.barcode_attached', 'part.barcode_detached']));
   });
+
+  it('the lookup finds a part by its supplier barcode, scanned in any of its forms, and only in its own shop', async () => {
+    const part = await w.addPart('CB-40', { description: 'Carburettor float bowl gasket' });
+    // EAN-8 9638507|4, the widely cited EAN-8 example (from memory; its check digit is verified by libs/domain).
+    expectStatus(await w.as.buyer.post(url(w, `/parts/${part}/barcodes`)).set(csrf).send({ code: '96385074' }), 201);
+    for (const typed of ['96385074', '0000 0096 3850 74']) {
+      const res = await w.as.mechanic.get(url(w, `/parts/search?q=${encodeURIComponent(typed)}`));
+      expectStatus(res, 200);
+      expect(res.body.results[0]).toMatchObject({ id: part, number: 'CB-40', match: 'exact', reason: `supplier barcode ${typed.replace(/\s/g, '')}` });
+    }
+    const elsewhere = await other.as.mechanic.get(url(other, '/parts/search?q=96385074'));
+    expect(elsewhere.body.results.map((r: { id: string }) => r.id)).not.toContain(part);
+    // A wrong check digit is just a number typed: no barcode match.
+    const wrong = await w.as.mechanic.get(url(w, '/parts/search?q=96385075'));
+    expect(wrong.body.results.filter((r: { reason: string }) => r.reason.startsWith('supplier barcode'))).toEqual([]);
+  });
 });
