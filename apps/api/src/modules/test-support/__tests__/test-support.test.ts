@@ -20,7 +20,7 @@ describe('POST /api/test-support/shops (test mode)', () => {
     const buyer = res.body.users[1];
     const agent = await signedInAgent(ctx.app, buyer.email, res.body.password);
     const me = await agent.get('/api/me');
-    expect(me.body.memberships).toEqual([{ shopId: res.body.shop.id, shopName: res.body.shop.name, role: 'buyer', spendingLimitMinor: 50_000 }]);
+    expect(me.body.memberships).toEqual([{ shopId: res.body.shop.id, shopName: res.body.shop.name, role: 'buyer', spendingLimitMinor: 50_000, readOnly: false }]);
   });
 
   it('can make the new users members of an existing shop too (shop switching)', async () => {
