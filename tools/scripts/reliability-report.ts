@@ -10,10 +10,13 @@ import path from 'node:path';
 export const reliabilitySuites: Array<{ file: string; tries: string }> = [
   { file: 'apps/api/src/db/__tests__/write-lock.test.ts', tries: 'overlapping transactions, one rolling back, through the shared connection' },
   { file: 'apps/api/src/db/__tests__/crash.test.ts', tries: 'SIGKILL at 20 %, 50 %, 80 % and 95 % of a 20,000-row import commit' },
+  { file: 'apps/api/src/db/__tests__/crash-count.test.ts', tries: 'SIGKILL at 30 %, 60 % and 90 % of posting a 1,000-line stock count' },
   { file: 'apps/api/src/db/__tests__/backup.test.ts', tries: 'an online backup in another process while four writers commit; restores into running, damaged and empty targets' },
   { file: 'apps/api/src/__tests__/graceful-shutdown.test.ts', tries: 'SIGTERM while a request body is still arriving' },
   { file: 'apps/api/src/__tests__/hostile-input.test.ts', tries: 'malformed, deep, oversized, wrongly typed and Unicode-tricked bodies; generated queries, forms and files' },
   { file: 'apps/api/src/modules/stock/__tests__/stock-concurrency.test.ts', tries: 'many concurrent holds and issues of the last units' },
+  { file: 'apps/api/src/modules/sales/__tests__/invoices.test.ts', tries: 'twenty invoices issued at once: numbers without gaps' },
+  { file: 'apps/api/src/modules/counts/__tests__/counts.test.ts', tries: 'two people counting one bin at once while stock moves' },
 ];
 
 interface VitestJson {
