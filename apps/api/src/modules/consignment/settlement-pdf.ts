@@ -1,6 +1,7 @@
 import { PDFDocument, StandardFonts, rgb, type PDFFont } from 'pdf-lib';
 import { formatMoney } from '@tappet/domain';
 import type { ConsignmentSettlement } from '@tappet/contracts';
+import { printable } from '../../lib/pdf-text';
 
 export interface SettlementPdfInput {
   settlement: ConsignmentSettlement;
@@ -9,10 +10,6 @@ export interface SettlementPdfInput {
   consignorName: string;
   vehicle: string;
   currency: string;
-}
-
-function printable(text: string): string {
-  return text.replace(/[\u00a0\u202f\u2009]/g, ' ').replace(/[‘’]/g, "'").replace(/[“”]/g, '"').replace(/[–—−]/g, '-').replace(/[^\x20-\x7e\u00a1-\u00ff\u20ac]/g, '?');
 }
 
 const methodWords = { bank_transfer: 'bank transfer', cheque: 'cheque', cash: 'cash' } as const;

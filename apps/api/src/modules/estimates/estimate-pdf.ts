@@ -1,5 +1,6 @@
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
 import { formatMoney } from '@tappet/domain';
+import { fitText, printable } from '../../lib/pdf-text';
 
 export interface EstimatePdfInput {
   reference: string;
@@ -19,11 +20,6 @@ export interface EstimatePdfInput {
   taxByRate: { ratePercent: number; netMinor: number; taxMinor: number }[];
   approvalUrl: string | null;
   linkExpiresAt: Date | null;
-}
-
-/** The standard PDF fonts only encode WinAnsi: keep Latin-1 and the euro sign, replace the rest. */
-function printable(text: string): string {
-  return text.replace(/[\u00a0\u202f\u2009]/g, ' ').replace(/[‘’]/g, "'").replace(/[“”]/g, '"').replace(/[–—]/g, '-').replace(/[^\x20-\x7e\u00a1-\u00ff\u20ac]/g, '?');
 }
 
 /**
@@ -48,12 +44,7 @@ export async function renderEstimatePdf(input: EstimatePdfInput): Promise<Buffer
     const p = printable(s);
     page.drawText(p, { x: xRight - f.widthOfTextAtSize(p, size), y, size, font: f, color: ink });
   };
-  const fit = (s: string, max: number, size = 10) => {
-    let p = printable(s);
-    if (font.widthOfTextAtSize(p, size) <= max) return p;
-    while (p.length > 1 && font.widthOfTextAtSize(`${p}...`, size) > max) p = p.slice(0, -1);
-    return `${p}...`;
-  };
+  const fit = (s: string, max: number, size = 10) => fitText(font, s, max, size);
 
   text(`Estimate ${input.reference}`, margin, 18, bold);
   y -= 24;

@@ -1,6 +1,7 @@
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
 import { itemResultWords, jobStatusWords, type Checklist, type ItemRecord, type JobDetail } from '@tappet/contracts';
 import { cautionTexts, compressionForDisplay, formatMeasurement, formatMoney, safetyDeferral, type CautionId, type PressureUnit } from '@tappet/domain';
+import { printable } from '../../lib/pdf-text';
 
 /** What the printed job sheet needs besides the job itself. */
 export interface JobSheetInput {
@@ -13,21 +14,6 @@ export interface JobSheetInput {
 
 /** The line every job sheet ends with: Tappet records, it does not certify. */
 export const jobSheetDisclaimer = 'Tappet defers to local regulations and licensed practice and does not state that this vehicle is roadworthy.';
-
-/**
- * The standard PDF fonts encode WinAnsi only: typographic quotes and dashes become their plain
- * forms, no-break spaces plain spaces, anything else outside Latin-1 a "?".
- */
-export function printable(text: string): string {
-  return text
-    .replace(/[\u00a0\u202f\u2009]/g, ' ')
-    .replace(/[\u2018\u2019]/g, "'")
-    .replace(/[\u201c\u201d]/g, '"')
-    .replace(/[\u2013\u2014]/g, '-')
-    .replace(/\u2026/g, '...')
-    .replace(/\u00d7/g, 'x')
-    .replace(/[^\x20-\x7e\u00a1-\u00ff\u20ac]/g, '?');
-}
 
 type Item = Checklist['items'][number];
 

@@ -1,5 +1,6 @@
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
 import { formatMoney } from '@tappet/domain';
+import { fitText, printable } from '../../lib/pdf-text';
 
 /** What the printed order shows. Amounts are in the order's currency. */
 export interface OrderPdfInput {
@@ -12,11 +13,6 @@ export interface OrderPdfInput {
   note: string | null;
   lines: Array<{ partNumber: string; supplierNumber: string | null; description: string; quantity: number; unitPriceMinor: number; coreDepositMinor: number }>;
   totalMinor: number;
-}
-
-/** The standard PDF fonts only encode WinAnsi: keep Latin-1 and the euro sign, replace the rest. */
-function printable(text: string): string {
-  return text.replace(/[\u00a0\u202f\u2009]/g, ' ').replace(/[^\x20-\x7e\u00a1-\u00ff\u20ac]/g, '?');
 }
 
 /**
@@ -39,12 +35,7 @@ export async function renderOrderPdf(input: OrderPdfInput): Promise<Buffer> {
     const p = printable(s);
     page.drawText(p, { x: xRight - f.widthOfTextAtSize(p, size), y, size, font: f, color: rgb(0.12, 0.11, 0.1) });
   };
-  const fit = (s: string, max: number, size = 10) => {
-    let p = printable(s);
-    if (font.widthOfTextAtSize(p, size) <= max) return p;
-    while (p.length > 1 && font.widthOfTextAtSize(`${p}...`, size) > max) p = p.slice(0, -1);
-    return `${p}...`;
-  };
+  const fit = (s: string, max: number, size = 10) => fitText(font, s, max, size);
 
   text(`Purchase order ${input.reference}`, margin, 18, bold);
   y -= 24;

@@ -1,5 +1,6 @@
 import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
 import { formatMoney } from '@tappet/domain';
+import { fitText, printable } from '../../lib/pdf-text';
 
 /** What a printed invoice or credit note shows. Amounts in minor units of `currency`. */
 export interface InvoicePdfInput {
@@ -22,16 +23,6 @@ export interface InvoicePdfInput {
   dueMinor: number;
   payUrl: string | null;
   notes: string | null;
-}
-
-/** The standard PDF fonts only encode WinAnsi: keep Latin-1 and the euro sign, replace the rest. */
-function printable(text: string): string {
-  return text
-    .replace(/[\u00a0\u202f\u2009]/g, ' ')
-    .replace(/[\u2018\u2019]/g, "'")
-    .replace(/[\u201c\u201d]/g, '"')
-    .replace(/[\u2013\u2014]/g, '-')
-    .replace(/[^\x20-\x7e\u00a1-\u00ff\u20ac]/g, '?');
 }
 
 const percentText = (n: number) => `${Number(n.toFixed(3))}%`;
@@ -58,12 +49,7 @@ export async function renderInvoicePdf(input: InvoicePdfInput): Promise<Buffer> 
     const p = printable(s);
     page.drawText(p, { x: xRight - f.widthOfTextAtSize(p, size), y, size, font: f, color: ink });
   };
-  const fit = (s: string, max: number, size = 10) => {
-    let p = printable(s);
-    if (font.widthOfTextAtSize(p, size) <= max) return p;
-    while (p.length > 1 && font.widthOfTextAtSize(`${p}...`, size) > max) p = p.slice(0, -1);
-    return `${p}...`;
-  };
+  const fit = (s: string, max: number, size = 10) => fitText(font, s, max, size);
   const rule = () => page.drawLine({ start: { x: margin, y }, end: { x: width - margin, y }, thickness: 0.5, color: rgb(0.4, 0.4, 0.4) });
 
   text(`${input.title} ${input.number ?? '(draft, not issued)'}`, margin, 18, bold);
