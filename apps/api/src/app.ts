@@ -108,6 +108,8 @@ export const mailSendingRoutes = [
   '/shops/:shopId/purchasing/orders/:orderId/send',
   '/shops/:shopId/purchasing/orders/:orderId/request-approval',
   '/platform/shops',
+  '/shops/:shopId/sales/invoices/:invoiceId/email',
+  '/shops/:shopId/estimates/:estimateId/send',
 ];
 
 /** Builds the Express app (no listen): API, security headers, logs, the web app and fonts. */
