@@ -9,6 +9,24 @@ const roleDuty: Record<ShopRole, string> = {
   viewer: 'You can read the shop’s records but not change them.',
 };
 
+/** Where each role starts its day, by the names of the menu's entries. */
+const roleStarts: Record<ShopRole, string[]> = {
+  owner: [
+    'Find any part number, old or new, under Lookup.',
+    'Follow every vehicle and job under Vehicles and Jobs.',
+    'Invoice customers and record payments under Sales; see how the shop is doing under Sales reports.',
+    'Keep the shop’s settings, staff and billing under Shop, Staff and Billing.',
+  ],
+  mechanic: [
+    'Find parts under Lookup: type what is stamped on the part, or scan a label.',
+    'Your jobs are under Jobs: record checklists, readings, parts and labour there.',
+  ],
+  buyer: ['Work through the reorder list and receive deliveries under Purchasing.', 'Count stock, bin by bin, under Counts.'],
+  viewer: ['Look anything up under Lookup, Stock, Vehicles and Jobs.'],
+};
+
+const untilFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+
 const amountFormat = new Intl.NumberFormat(undefined, { minimumFractionDigits: 2, maximumFractionDigits: 2 });
 
 export interface RoleWelcomeProps {
@@ -24,10 +42,9 @@ export interface RoleWelcomeProps {
  */
 export function RoleWelcome({ firstName, membership, shopCount }: RoleWelcomeProps) {
   const { role } = membership;
-  const now: string[] = [];
-  if (role === 'owner') now.push('Change the shop’s name, here or on the Shop page.');
-  if (shopCount > 1) now.push('Move between your shops with “Switch shop” at the top of the page.');
-  now.push('Read the API documentation to connect other tools to Tappet.');
+  const support = membership.supportUntil != null;
+  const now: string[] = support ? ['Look things up and correct records where the owner asked for help.'] : [...roleStarts[role]];
+  if (shopCount > 1 && !support) now.push('Move between your shops with “Switch shop” at the top of the page.');
   now.push('Choose a light or dark theme for this device with “Theme” at the foot of the menu.');
 
   return (
@@ -38,10 +55,19 @@ export function RoleWelcome({ firstName, membership, shopCount }: RoleWelcomePro
         </h2>
         <Badge tone="accent">
           <span className="sr-only">Your role: </span>
-          {roleLabels[role]}
+          {support ? 'Support access' : roleLabels[role]}
         </Badge>
       </div>
-      <p>{roleDuty[role]}</p>
+      <p>
+        {support ? (
+          <>
+            You are here under the owner’s support grant, until <time dateTime={membership.supportUntil!}>{untilFormat.format(new Date(membership.supportUntil!))}</time>. Staff, API keys,
+            billing and support access stay with the shop.
+          </>
+        ) : (
+          roleDuty[role]
+        )}
+      </p>
       {role === 'buyer' && (
         <p>
           {membership.spendingLimitMinor === null ? (
@@ -63,7 +89,6 @@ export function RoleWelcome({ firstName, membership, shopCount }: RoleWelcomePro
           ))}
         </ul>
       </div>
-      <p className="text-ink-muted">The menu grows as more of Tappet is switched on for this shop.</p>
     </section>
   );
 }
