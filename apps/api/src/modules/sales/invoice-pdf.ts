@@ -1,6 +1,5 @@
-import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
 import { formatMoney } from '@tappet/domain';
-import { fitText, printable } from '../../lib/pdf-text';
+import { A4Writer } from '../../lib/a4-document';
 
 /** What a printed invoice or credit note shows. Amounts in minor units of `currency`. */
 export interface InvoicePdfInput {
@@ -33,76 +32,42 @@ const percentText = (n: number) => `${Number(n.toFixed(3))}%`;
  * paid and due, with the pay link when one exists.
  */
 export async function renderInvoicePdf(input: InvoicePdfInput): Promise<Buffer> {
-  const doc = await PDFDocument.create();
-  doc.setTitle(`${input.title} ${input.number ?? '(draft)'}`);
-  doc.setCreator('Tappet');
-  const font = await doc.embedFont(StandardFonts.Helvetica);
-  const bold = await doc.embedFont(StandardFonts.HelveticaBold);
+  const w = await A4Writer.create(`${input.title} ${input.number ?? '(draft)'}`);
+  const { margin, width, font, bold } = w;
   const money = (minor: number) => formatMoney(minor, input.currency);
-  const [width, height] = [595.28, 841.89];
-  const margin = 48;
-  let page: PDFPage = doc.addPage([width, height]);
-  let y = height - margin;
-  const ink = rgb(0.12, 0.11, 0.1);
-  const text = (s: string, x: number, size = 10, f: PDFFont = font) => page.drawText(printable(s), { x, y, size, font: f, color: ink });
-  const right = (s: string, xRight: number, size = 10, f: PDFFont = font) => {
-    const p = printable(s);
-    page.drawText(p, { x: xRight - f.widthOfTextAtSize(p, size), y, size, font: f, color: ink });
-  };
-  const fit = (s: string, max: number, size = 10) => fitText(font, s, max, size);
-  const rule = () => page.drawLine({ start: { x: margin, y }, end: { x: width - margin, y }, thickness: 0.5, color: rgb(0.4, 0.4, 0.4) });
 
-  text(`${input.title} ${input.number ?? '(draft, not issued)'}`, margin, 18, bold);
-  y -= 24;
-  text(`Date: ${input.issuedOn ?? 'not issued'}`, margin);
-  if (input.reference) text(input.reference, width / 2);
-  y -= 22;
-  text('From', margin, 9, bold);
-  text('To', width / 2, 9, bold);
-  y -= 14;
-  text(input.shopName, margin);
-  text(input.customerName, width / 2);
-  const shopLines = input.shopAddress.split(/\r?\n/).filter(Boolean).slice(0, 4);
-  const customerLines = (input.customerAddress ?? '').split(/\r?\n/).filter(Boolean).slice(0, 4);
-  for (let i = 0; i < Math.max(shopLines.length, customerLines.length); i++) {
-    y -= 13;
-    if (shopLines[i]) text(shopLines[i]!, margin);
-    if (customerLines[i]) text(customerLines[i]!, width / 2);
-  }
-  y -= 28;
+  w.title(`${input.title} ${input.number ?? '(draft, not issued)'}`, `Date: ${input.issuedOn ?? 'not issued'}`, input.reference);
+  w.parties({ label: 'From', name: input.shopName, address: input.shopAddress }, { label: 'To', name: input.customerName, address: input.customerAddress });
+  w.down(28);
   const cols = { description: margin, qty: width - margin - 230, unit: width - margin - 160, tax: width - margin - 90, total: width - margin };
   const header = () => {
-    text('Description', cols.description, 9, bold);
-    right('Qty', cols.qty, 9, bold);
-    right('Unit price', cols.unit, 9, bold);
-    right('Tax', cols.tax, 9, bold);
-    right('Net', cols.total, 9, bold);
-    y -= 6;
-    rule();
-    y -= 14;
+    w.text('Description', cols.description, 9, bold);
+    w.right('Qty', cols.qty, 9, bold);
+    w.right('Unit price', cols.unit, 9, bold);
+    w.right('Tax', cols.tax, 9, bold);
+    w.right('Net', cols.total, 9, bold);
+    w.down(6);
+    w.rule();
+    w.down(14);
   };
   header();
   for (const l of input.lines) {
-    if (y < margin + 140) {
-      page = doc.addPage([width, height]);
-      y = height - margin;
-      header();
-    }
+    w.breakBelow(margin + 140, header);
     const discount = l.discountPercent > 0 ? ` (less ${percentText(l.discountPercent)})` : '';
-    text(fit(`${l.description}${discount}`, cols.qty - cols.description - 40), cols.description);
-    right(l.quantity, cols.qty);
-    right(money(l.unitPriceMinor), cols.unit);
-    right(percentText(l.taxRatePercent), cols.tax);
-    right(money(l.netMinor), cols.total);
-    y -= 16;
+    w.text(w.fit(`${l.description}${discount}`, cols.qty - cols.description - 40), cols.description);
+    w.right(l.quantity, cols.qty);
+    w.right(money(l.unitPriceMinor), cols.unit);
+    w.right(percentText(l.taxRatePercent), cols.tax);
+    w.right(money(l.netMinor), cols.total);
+    w.down(16);
   }
-  y += 6;
-  rule();
-  y -= 16;
-  const total = (label: string, minor: number, f: PDFFont = font, size = 10) => {
-    right(label, cols.tax, size, f);
-    right(money(minor), cols.total, size, f);
-    y -= 15;
+  w.down(-6);
+  w.rule();
+  w.down(16);
+  const total = (label: string, minor: number, f = font, size = 10) => {
+    w.right(label, cols.tax, size, f);
+    w.right(money(minor), cols.total, size, f);
+    w.down(15);
   };
   total('Net', input.netMinor);
   for (const r of input.taxByRate) total(`Tax at ${percentText(r.ratePercent)} on ${money(r.netMinor)}`, r.taxMinor);
@@ -111,14 +76,14 @@ export async function renderInvoicePdf(input: InvoicePdfInput): Promise<Buffer> 
   if (input.paidMinor > 0) total('Paid', -input.paidMinor);
   if (input.title === 'Invoice') total('Due', input.dueMinor, bold, 11);
   if (input.notes) {
-    y -= 14;
-    text(fit(input.notes, width - 2 * margin), margin);
+    w.down(14);
+    w.text(w.fit(input.notes, w.contentWidth), margin);
   }
   if (input.payUrl && input.dueMinor > 0) {
-    y -= 20;
-    text('Pay by card:', margin, 9, bold);
-    y -= 12;
-    text(fit(input.payUrl, width - 2 * margin, 8), margin, 8);
+    w.down(20);
+    w.text('Pay by card:', margin, 9, bold);
+    w.down(12);
+    w.text(w.fit(input.payUrl, w.contentWidth, 8), margin, 8);
   }
-  return Buffer.from(await doc.save());
+  return w.save();
 }
