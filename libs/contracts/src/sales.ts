@@ -262,6 +262,11 @@ export const invoiceSummarySchema = z.object({
   grossMinor: z.number().int(),
   paidMinor: z.number().int(),
   dueMinor: z.number().int(),
+  /**
+   * Paid and credited beyond the total (two card checkouts of the same amount both completed,
+   * say). The shop refunds it or keeps it as the customer's credit; Tappet refunds nothing itself.
+   */
+  overpaidMinor: z.number().int(),
   issuedAt: z.string().nullable(),
   createdAt: z.string(),
 });

@@ -134,11 +134,13 @@ async function settledOf(manager: EntityManager, shopId: string, invoiceIds: rea
   return out;
 }
 
-function paymentState(row: Pick<InvoiceRow, 'kind' | 'grossMinor'>, paid: number, credited: number): { paymentStatus: InvoiceSummary['paymentStatus']; dueMinor: number } {
-  if (row.kind === 'credit_note') return { paymentStatus: 'paid', dueMinor: 0 };
+function paymentState(row: Pick<InvoiceRow, 'kind' | 'grossMinor'>, paid: number, credited: number): { paymentStatus: InvoiceSummary['paymentStatus']; dueMinor: number; overpaidMinor: number } {
+  if (row.kind === 'credit_note') return { paymentStatus: 'paid', dueMinor: 0, overpaidMinor: 0 };
   const due = row.grossMinor - credited - paid;
-  if (due <= 0) return { paymentStatus: 'paid', dueMinor: Math.max(0, due) };
-  return { paymentStatus: paid > 0 ? 'part_paid' : 'unpaid', dueMinor: due };
+  // Cash and transfers are refused above what is due, but card checkouts opened before another
+  // payment landed can still complete: the surplus is shown, never hidden in a zero.
+  if (due <= 0) return { paymentStatus: 'paid', dueMinor: 0, overpaidMinor: -due };
+  return { paymentStatus: paid > 0 ? 'part_paid' : 'unpaid', dueMinor: due, overpaidMinor: 0 };
 }
 
 function summaryOf(row: InvoiceRow, settled: { paid: number; credited: number }): InvoiceSummary {
@@ -158,6 +160,7 @@ function summaryOf(row: InvoiceRow, settled: { paid: number; credited: number })
     grossMinor: row.grossMinor,
     paidMinor: settled.paid,
     dueMinor: state.dueMinor,
+    overpaidMinor: state.overpaidMinor,
     issuedAt: row.issuedAt ? isoOf(row.issuedAt) : null,
     createdAt: isoOf(row.createdAt),
   };

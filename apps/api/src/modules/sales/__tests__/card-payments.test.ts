@@ -101,6 +101,24 @@ describe('card payments', () => {
     expect((await request(world.ctx.app).get('/api/pay/not-a-real-token-at-all-xyz')).status).toBe(404);
   });
 
+  it('shows the surplus when two checkouts for the whole amount both complete', async () => {
+    // 50.00 + 20 % = 60.00. Two checkouts are opened before either is paid (two tabs, or the
+    // customer's link and the counter): each is for what was due then, and Stripe takes both.
+    const inv = await issued(5000, 'ria@penhallow.test');
+    const first = await owner.post(url(`/invoices/${inv.id}/card-checkout`)).set(csrf).send({});
+    const second = await owner.post(url(`/invoices/${inv.id}/card-checkout`)).set(csrf).send({});
+    expect([first.status, second.status]).toEqual([200, 200]);
+    expect((await payCheckout(first.body.url)).status).toBe(303);
+    expect((await owner.get(url(`/invoices/${inv.id}`))).body).toMatchObject({ paidMinor: 6000, dueMinor: 0, overpaidMinor: 0, paymentStatus: 'paid' });
+    expect((await payCheckout(second.body.url)).status).toBe(303);
+    const after = await owner.get(url(`/invoices/${inv.id}`));
+    expect(after.body).toMatchObject({ paidMinor: 12000, dueMinor: 0, overpaidMinor: 6000, paymentStatus: 'paid' });
+    expect(after.body.payments).toHaveLength(2);
+    // The list carries it too.
+    const listed = (await owner.get(url('/invoices?pageSize=100'))).body.invoices.find((i: { id: string }) => i.id === inv.id);
+    expect(listed).toMatchObject({ overpaidMinor: 6000 });
+  });
+
   it('lets only the owner start a card payment, and never for more than is due', async () => {
     const inv = await issued(1000);
     expect((await buyer.post(url(`/invoices/${inv.id}/card-checkout`)).set(csrf).send({})).status).toBe(403);

@@ -11,7 +11,7 @@ const invoiceId = '44444444-4444-4444-8444-444444444444';
 function draft(overrides: Partial<Invoice> = {}): Invoice {
   return {
     id: invoiceId, kind: 'invoice', status: 'draft', paymentStatus: 'unpaid', number: null, source: 'job', customerId: null, customerName: 'Nell Ashcombe', currency: 'GBP',
-    netMinor: 10550, taxMinor: 2053, grossMinor: 12603, paidMinor: 0, dueMinor: 12603, issuedAt: null, createdAt: '2026-01-15T09:00:00.000Z',
+    netMinor: 10550, taxMinor: 2053, grossMinor: 12603, paidMinor: 0, dueMinor: 12603, overpaidMinor: 0, issuedAt: null, createdAt: '2026-01-15T09:00:00.000Z',
     customerEmail: 'nell@ashcombe.test', customerAddress: null, notes: null, jobId: null, jobNumber: null, vehicleId: null, creditedInvoiceId: null, creditedInvoiceNumber: null,
     creditReason: null, creditNotes: [], taxRounding: 'per-line', creditedMinor: 0, emailedAt: null, payments: [],
     lines: [
@@ -65,5 +65,17 @@ describe('invoice page', () => {
     expect(screen.queryByRole('button', { name: 'Take card payment' })).not.toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Credit note' })).not.toBeInTheDocument();
     expect(screen.getByRole('link', { name: 'PDF' })).toHaveAttribute('href', `/api/shops/${shopA}/sales/invoices/${invoiceId}/pdf`);
+  }, 20_000);
+
+  it('says when an invoice is paid beyond its total, and what to do about it', async () => {
+    installFakeApi({
+      'GET /me': () => ({ body: me('owner') }),
+      [`GET /shops/${shopA}/sales/invoices/${invoiceId}`]: () => ({ body: draft({ status: 'issued', number: 'INV-00007', paymentStatus: 'paid', paidMinor: 25206, dueMinor: 0, overpaidMinor: 12603 }) }),
+    });
+    renderApp(`/shops/${shopA}/sales/invoices/${invoiceId}`);
+    const notice = await screen.findByText(/Paid £126.03 more than the total/, {}, slow);
+    expect(notice.closest('[role="status"]')).toHaveTextContent(/Refund the difference/);
+    const summary = screen.getByRole('region', { name: 'Summary' });
+    expect(within(summary).getByText('Overpaid').nextElementSibling).toHaveTextContent('£126.03');
   }, 20_000);
 });

@@ -35,6 +35,11 @@ export function InvoiceDetail({ shopId, invoiceId, can, cardReturn }: { shopId: 
           Card payment sent. It shows here once the card company confirms it, usually within seconds.
         </p>
       )}
+      {inv.overpaidMinor > 0 && (
+        <p role="status" className="rounded border-2 border-advise bg-advise-soft p-3">
+          <strong>Paid {money(inv.overpaidMinor, inv.currency)} more than the total.</strong> This happens when two card payments complete at once. Refund the difference to the customer through the card company, or agree to keep it as their credit; Tappet does not refund by itself.
+        </p>
+      )}
       <Summary inv={inv} />
       <Actions shopId={shopId} inv={inv} can={can} />
       <Lines inv={inv} shopId={shopId} canEdit={can.edit && inv.status === 'draft'} />
@@ -79,6 +84,14 @@ function Summary({ inv }: { inv: Invoice }) {
             <dd className="font-bold">
               <Num>{money(inv.dueMinor, inv.currency)}</Num>
             </dd>
+            {inv.overpaidMinor > 0 && (
+              <>
+                <dt className="text-ink-muted">Overpaid</dt>
+                <dd className="font-bold">
+                  <Num>{money(inv.overpaidMinor, inv.currency)}</Num>
+                </dd>
+              </>
+            )}
           </>
         )}
         {inv.issuedAt && (
