@@ -134,10 +134,11 @@ export function createApp(deps: AppDeps): Express {
   const counts = createCountsService({ db, clock });
   const barcodes = createBarcodesService({ db, clock });
   const labels = createLabelsService({ db, counts });
-  const shopExport = createShopExportService({ db, clock, uploadsDir: env.uploadsDir });
+  const files = deps.fileStore ?? localFileStore(env.uploadsDir);
+  const shopExport = createShopExportService({ db, clock, files });
   const customers = createCustomersService({ db, clock });
-  const vehicles = createVehiclesService({ db, clock, files: deps.fileStore ?? localFileStore(env.uploadsDir) });
-  const jobs = createJobsService({ db, clock, files: deps.fileStore ?? localFileStore(env.uploadsDir) });
+  const vehicles = createVehiclesService({ db, clock, files });
+  const jobs = createJobsService({ db, clock, files });
   const stripeClient = deps.stripe ?? createStripeClient(env);
   const billing = createBillingService({ db, clock, stripe: stripeClient, webhookSecret: stripeSettings(env).webhookSecret, publicUrl: env.publicUrl });
   const sales = createSalesService({ db, clock, mailer, stripe: stripeClient, publicUrl: env.publicUrl, onMailError: (err) => logger.error({ err }, 'e-mail failed') });
