@@ -7,6 +7,7 @@ import pino, { type Logger } from 'pino';
 import type { DataSource } from 'typeorm';
 import type { Env } from './config/env';
 import { databaseFor } from './db/write-lock';
+import { databaseRateLimitStore } from './db/rate-limit-store';
 import { staticRouter } from './http/static';
 import { systemClock, type Clock } from './lib/clock';
 import type { Mailer } from './lib/mailer';
@@ -90,6 +91,7 @@ export interface AppDeps {
   clock?: Clock;
   logger?: Logger;
   authLimits?: Partial<AuthLimits>;
+  /** Rate-limit counters; default the database's, shared by every process on it. */
   rateLimitStore?: RateLimitStore;
   /** Requests that send e-mail, per person and shop and hour (default in middleware/rate-limits.ts). */
   mailRequestLimit?: RateLimitRule;
@@ -118,23 +120,25 @@ export function createApp(deps: AppDeps): Express {
   const clock = deps.clock ?? systemClock;
   const logger = deps.logger ?? pino({ level: env.logLevel });
   const db = databaseFor(deps.dataSource);
-  const auth = createAuthService({ db, env, clock, mailer, limits: deps.authLimits, rateLimitStore: deps.rateLimitStore, onMailError: (err) => logger.error({ err }, 'e-mail failed') });
+  const rateLimitStore = deps.rateLimitStore ?? databaseRateLimitStore(db);
+  const auth = createAuthService({ db, env, clock, mailer, limits: deps.authLimits, rateLimitStore, onMailError: (err) => logger.error({ err }, 'e-mail failed') });
   const shops = createShopsService({ db, clock });
   const catalogue = createCatalogueService({ db, clock });
   const lookup = createLookupService({ index: memoryPartSearchIndex({ reader: () => db.reader, versionOf: (shopId) => catalogue.graphOf(shopId) }), graphOf: (shopId) => catalogue.graphOf(shopId), stockOf: (shopId, partIds) => freeStockByPart(db.reader, shopId, partIds), partOfBarcode: (shopId, gtin14) => partIdOfGtin(db.reader, shopId, gtin14) });
   const stock = createStockService({ db, clock, graphOf: (shopId) => catalogue.graphOf(shopId) });
   const imports = createImportService({ db, clock, catalogue });
-  const staff = createStaffService({ db, env, clock, mailer, rateLimitStore: deps.rateLimitStore, onMailError: (err) => logger.error({ err }, 'e-mail failed') });
+  const staff = createStaffService({ db, env, clock, mailer, rateLimitStore, onMailError: (err) => logger.error({ err }, 'e-mail failed') });
   const apiKeys = createApiKeysService({ db, clock });
   const audit = createAuditQueries({ db });
   const settings = createSettingsService({ db, clock });
   const counts = createCountsService({ db, clock });
   const barcodes = createBarcodesService({ db, clock });
   const labels = createLabelsService({ db, counts });
-  const shopExport = createShopExportService({ db, clock, uploadsDir: env.uploadsDir });
+  const files = deps.fileStore ?? localFileStore(env.uploadsDir);
+  const shopExport = createShopExportService({ db, clock, files });
   const customers = createCustomersService({ db, clock });
-  const vehicles = createVehiclesService({ db, clock, files: deps.fileStore ?? localFileStore(env.uploadsDir) });
-  const jobs = createJobsService({ db, clock, files: deps.fileStore ?? localFileStore(env.uploadsDir) });
+  const vehicles = createVehiclesService({ db, clock, files });
+  const jobs = createJobsService({ db, clock, files });
   const stripeClient = deps.stripe ?? createStripeClient(env);
   const billing = createBillingService({ db, clock, stripe: stripeClient, webhookSecret: stripeSettings(env).webhookSecret, publicUrl: env.publicUrl });
   const sales = createSalesService({ db, clock, mailer, stripe: stripeClient, publicUrl: env.publicUrl, onMailError: (err) => logger.error({ err }, 'e-mail failed') });
@@ -211,10 +215,10 @@ export function createApp(deps: AppDeps): Express {
   });
   api.use(authenticate(env, auth, apiKeys));
   // Routes that send e-mail on the caller's behalf share one allowance per person and shop.
-  api.post(mailSendingRoutes, mailRequestLimit({ clock, store: deps.rateLimitStore, rule: deps.mailRequestLimit }));
+  api.post(mailSendingRoutes, mailRequestLimit({ clock, store: rateLimitStore, rule: deps.mailRequestLimit }));
   api.use('/auth', authRouter({ env, auth }));
   // The customer's pay link from an invoice e-mail (no account; sales, issue 12).
-  api.use('/pay', payLinkRouter({ sales, clock, store: deps.rateLimitStore }));
+  api.use('/pay', payLinkRouter({ sales, clock, store: rateLimitStore }));
   api.use('/me', meRouter({ auth }));
   api.use('/invitations', invitationsRouter({ env, staff, auth }));
   // Before every shop route: billing state brought up to date, support grants noted (and audited).
@@ -241,7 +245,7 @@ export function createApp(deps: AppDeps): Express {
   api.use('/shops/:shopId/consignment', requireAuth, tenantContext(db), consignmentRouter({ consignment }));
   api.use('/shops/:shopId/sales-reports', requireAuth, tenantContext(db), salesReportsRouter({ reports: salesReports }));
   // The customer's approval link: no account, no shop tenancy, its own rate limit.
-  api.use('/estimate-approval', estimateApprovalRouter({ estimates, clock, store: deps.rateLimitStore }));
+  api.use('/estimate-approval', estimateApprovalRouter({ estimates, clock, store: rateLimitStore }));
   api.use('/shops/:shopId/counts', requireAuth, tenantContext(db), countsRouter({ counts }));
   // Supplier barcodes (issue 7): before the catalogue router, which owns the rest of /parts/:partId.
   api.use('/shops/:shopId/parts/:partId/barcodes', requireAuth, tenantContext(db), partBarcodesRouter({ barcodes }));

@@ -1,10 +1,12 @@
 import { createRequire } from 'node:module';
 import fs from 'node:fs';
 import path from 'node:path';
+import { pipeline } from 'node:stream/promises';
+import type { FileStore } from '../modules/uploads/file-store';
 import type { SqliteHandle } from './data-source';
 
 // Online backup and restore of one Tappet instance: the SQLite database (through SQLite's backup
-// API, so a running app keeps reading and writing) and the uploads folder. `npm run backup` and
+// API, so a running app keeps reading and writing) and the uploads, read through the file store. `npm run backup` and
 // `npm run restore` (tools/scripts) call these.
 
 interface RawDatabase extends SqliteHandle {
@@ -63,6 +65,20 @@ function copyTree(from: string, to: string): { files: number; bytes: number } {
   return { files, bytes };
 }
 
+/** Copies every stored upload into `to`, one file per key, streamed. */
+async function copyStore(files: FileStore, to: string): Promise<{ files: number; bytes: number }> {
+  let count = 0;
+  let bytes = 0;
+  for await (const key of files.list('')) {
+    const target = path.join(to, ...key.split('/'));
+    fs.mkdirSync(path.dirname(target), { recursive: true });
+    await pipeline(await files.stream(key), fs.createWriteStream(target, { flags: 'wx' }));
+    count++;
+    bytes += fs.statSync(target).size;
+  }
+  return { files: count, bytes };
+}
+
 function integrityOk(file: string): boolean {
   const db = new Database(file, { readonly: true, fileMustExist: true });
   try {
@@ -79,7 +95,7 @@ function integrityOk(file: string): boolean {
  * first: an upload's file is written before its row commits, so every file a row in the snapshot
  * names is already on disk when the uploads are copied.
  */
-export async function takeBackup(options: { databasePath: string; uploadsDir: string; backupsDir: string; now?: Date }): Promise<{ dir: string; manifest: BackupManifest }> {
+export async function takeBackup(options: { databasePath: string; files: FileStore; backupsDir: string; now?: Date }): Promise<{ dir: string; manifest: BackupManifest }> {
   const now = options.now ?? new Date();
   const dir = path.join(options.backupsDir, `tappet-${now.toISOString().replace(/[:.]/g, '-')}`);
   fs.mkdirSync(dir, { recursive: true });
@@ -95,7 +111,7 @@ export async function takeBackup(options: { databasePath: string; uploadsDir: st
   const copy = new Database(target, { readonly: true, fileMustExist: true });
   const migrations = (copy.prepare('SELECT name FROM migrations ORDER BY id').all() as Array<{ name: string }>).map((m) => m.name);
   copy.close();
-  const uploads = copyTree(options.uploadsDir, path.join(dir, 'uploads'));
+  const uploads = await copyStore(options.files, path.join(dir, 'uploads'));
   const manifest: BackupManifest = { takenAt: now.toISOString(), database: { file: 'tappet.sqlite', bytes: fs.statSync(target).size, migrations }, uploads };
   fs.writeFileSync(path.join(dir, 'manifest.json'), `${JSON.stringify(manifest, null, 2)}\n`);
   return { dir, manifest };
@@ -104,7 +120,8 @@ export async function takeBackup(options: { databasePath: string; uploadsDir: st
 /**
  * Restores a backup folder into a stopped instance. Refuses while an API runs on the data folder
  * and when the backup fails its integrity check. What was there before is moved aside (never
- * deleted) into `<backupsDir>/replaced-<time>/`, so a restore can itself be undone.
+ * deleted) into `<backupsDir>/replaced-<time>/`, so a restore can itself be undone. Uploads go back
+ * into the local uploads folder: restoring is the one-machine tool, like the SQLite file itself.
  */
 export function restoreBackup(options: { backupDir: string; dataDir: string; databasePath: string; uploadsDir: string; backupsDir: string; now?: Date }): { replacedDir: string | null } {
   const running = runningInstance(options.dataDir);

@@ -1,7 +1,7 @@
 import type { RequestHandler } from 'express';
 import type { Clock } from '../lib/clock';
 import { HttpError } from '../lib/http-error';
-import { MemoryRateLimitStore, RateLimiter, type RateLimitRule, type RateLimitStore } from '../lib/rate-limiter';
+import { RateLimiter, type RateLimitRule, type RateLimitStore } from '../lib/rate-limiter';
 
 /**
  * E-mails sent on a person's behalf (orders to suppliers, approval requests, invoices, estimates,
@@ -16,15 +16,14 @@ export const defaultMailRequestLimit: RateLimitRule = { limit: 60, windowMs: 60 
  * the path. Mounted after `authenticate`: a request with no identity is not counted (it is refused
  * later), so strangers cannot use up a shop's allowance.
  */
-export function mailRequestLimit(deps: { clock: Clock; store?: RateLimitStore; rule?: RateLimitRule }): RequestHandler {
-  const limiter = new RateLimiter(deps.rule ?? defaultMailRequestLimit, deps.clock, deps.store ?? new MemoryRateLimitStore());
-  return (req, _res, next) => {
+export function mailRequestLimit(deps: { clock: Clock; store: RateLimitStore; rule?: RateLimitRule }): RequestHandler {
+  const limiter = new RateLimiter('mail', deps.rule ?? defaultMailRequestLimit, deps.clock, deps.store);
+  return async (req, _res, next) => {
     const who = req.auth?.user.id ?? (req.apiKey ? `key:${req.apiKey.id}` : null);
     if (!who) return next();
-    const key = `mail:${String(req.params['shopId'] ?? 'platform')}:${who}`;
-    const wait = limiter.retryAfterSeconds(key);
+    const key = `${String(req.params['shopId'] ?? 'platform')}:${who}`;
+    const wait = await limiter.take(key);
     if (wait > 0) return next(rateLimitedError(wait, 'e-mails sent in the last hour'));
-    limiter.record(key);
     next();
   };
 }
@@ -39,13 +38,11 @@ export function rateLimitedError(retryAfterSeconds: number, what = 'attempts'): 
  * A per-address limit for routes anyone may call without an account (the customer's estimate
  * approval and invoice pay links): every request counts, under `name` and the client address.
  */
-export function addressRateLimit(deps: { name: string; rule: RateLimitRule; clock: Clock; store?: RateLimitStore }): RequestHandler {
-  const limiter = new RateLimiter(deps.rule, deps.clock, deps.store ?? new MemoryRateLimitStore());
-  return (req, _res, next) => {
-    const key = `${deps.name}:${req.ip ?? 'unknown'}`;
-    const wait = limiter.retryAfterSeconds(key);
+export function addressRateLimit(deps: { name: string; rule: RateLimitRule; clock: Clock; store: RateLimitStore }): RequestHandler {
+  const limiter = new RateLimiter(deps.name, deps.rule, deps.clock, deps.store);
+  return async (req, _res, next) => {
+    const wait = await limiter.take(req.ip ?? 'unknown');
     if (wait > 0) return next(rateLimitedError(wait));
-    limiter.record(key);
     next();
   };
 }

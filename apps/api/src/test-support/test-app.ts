@@ -58,6 +58,18 @@ export async function createTestContext(options: { env?: Record<string, string>;
   return { app, db: database.db, env, clock, mailer, close: database.close };
 }
 
+/**
+ * A second app on the same database file, with its own connection, write lock and services, as a
+ * second API process would have it (same env, so the same uploads folder too). Close it before
+ * `ctx.close()`.
+ */
+export async function openSecondInstance(ctx: TestContext, deps: Partial<AppDeps> = {}): Promise<{ app: Express; db: Database; close(): Promise<void> }> {
+  const dataSource = createDataSource(ctx.env.databasePath);
+  await dataSource.initialize();
+  const app = createApp({ dataSource, env: ctx.env, mailer: ctx.mailer, clock: ctx.clock, logger: pino({ level: 'silent' }), ...deps });
+  return { app, db: databaseFor(dataSource), close: () => dataSource.destroy() };
+}
+
 /** Creates a shop with one user per role; returns the shop, users by role and the password. */
 export async function seedShop(ctx: Pick<TestContext, 'db' | 'clock'>, roles: ShopRole[] = ['owner', 'mechanic', 'buyer', 'viewer']) {
   const created = await createShopWithUsers(ctx.db, ctx.clock, { roles });

@@ -5,6 +5,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { createDataSource, sqliteHandle } from '../data-source';
+import { localFileStore } from '../../modules/uploads/file-store';
 import { BackupError, pidFileName, restoreBackup, runningInstance, takeBackup, type BackupManifest } from '../backup';
 import { ShopEntity } from '../../modules/shops/shops.entity';
 import { openTestDatabase } from '../../test-support/test-app';
@@ -97,7 +98,7 @@ describe('online backup and restore', () => {
 
   it('refuses to restore into a running instance, and refuses a damaged backup, changing nothing', async () => {
     await database.db.write((m) => m.insert(ShopEntity, shopRow()));
-    const { dir } = await takeBackup({ databasePath: databasePath(), uploadsDir: path.join(database.dir, 'uploads'), backupsDir: path.join(work, 'backups') });
+    const { dir } = await takeBackup({ databasePath: databasePath(), files: localFileStore(path.join(database.dir, 'uploads')), backupsDir: path.join(work, 'backups') });
     const target = path.join(work, 'live');
     fs.mkdirSync(target, { recursive: true });
     fs.writeFileSync(path.join(target, 'tappet.sqlite'), 'the live database');

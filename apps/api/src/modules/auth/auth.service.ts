@@ -8,7 +8,9 @@ import type { Clock } from '../../lib/clock';
 import { HttpError, badRequest, forbidden } from '../../lib/http-error';
 import type { Mailer } from '../../lib/mailer';
 import { hashPassword, passwordProblem, verifyPassword, warmUpDummyHash } from '../../lib/password';
-import { RateLimiter, type RateLimitRule, type RateLimitStore, MemoryRateLimitStore } from '../../lib/rate-limiter';
+import { RateLimiter, type RateLimitRule, type RateLimitStore } from '../../lib/rate-limiter';
+import { databaseRateLimitStore } from '../../db/rate-limit-store';
+import { rateLimitedError } from '../../middleware/rate-limits';
 import { hashToken, newToken } from '../../lib/tokens';
 import { recordAudit, type AuditActor } from '../audit/audit.service';
 import { MembershipEntity, ShopEntity, readOnlyBillingStates, type BillingState } from '../shops/shops.entity';
@@ -74,18 +76,13 @@ export function createAuthService(deps: AuthServiceDeps) {
   // Ready before the first unknown address arrives, so that one is not slower than the rest.
   void warmUpDummyHash();
   const limits = { ...defaultAuthLimits, ...deps.limits };
-  const store = deps.rateLimitStore ?? new MemoryRateLimitStore();
+  const store = deps.rateLimitStore ?? databaseRateLimitStore(db);
   const limiter = {
-    signInAccount: new RateLimiter(limits.signInFailuresPerAccount, clock, store),
-    signInIp: new RateLimiter(limits.signInFailuresPerIp, clock, store),
-    resetAccount: new RateLimiter(limits.resetRequestsPerAccount, clock, store),
-    resetIp: new RateLimiter(limits.resetRequestsPerIp, clock, store),
+    signInAccount: new RateLimiter('sign-in-account', limits.signInFailuresPerAccount, clock, store),
+    signInIp: new RateLimiter('sign-in-ip', limits.signInFailuresPerIp, clock, store),
+    resetAccount: new RateLimiter('reset-account', limits.resetRequestsPerAccount, clock, store),
+    resetIp: new RateLimiter('reset-ip', limits.resetRequestsPerIp, clock, store),
   };
-
-  function rateLimited(retryAfter: number, what: string): HttpError {
-    const minutes = Math.ceil(retryAfter / 60);
-    return new HttpError(429, 'rate_limited', `Too many ${what}. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`, { retryAfterSeconds: retryAfter }, { 'Retry-After': String(retryAfter) });
-  }
 
   async function buildMe(user: User, activeShopId: string | null): Promise<MeWithActiveShop> {
     const rows = await db.reader
@@ -137,21 +134,21 @@ export function createAuthService(deps: AuthServiceDeps) {
      * browser came with, if any, is ended). Returns the cookie token and the me payload.
      */
     async signIn(email: string, password: string, info: RequestInfo, previousToken: string | null) {
-      const ipKey = `sign-in:ip:${info.ip ?? 'unknown'}`;
-      const accountKey = `sign-in:account:${email}`;
-      const wait = Math.max(limiter.signInIp.retryAfterSeconds(ipKey), limiter.signInAccount.retryAfterSeconds(accountKey));
-      if (wait > 0) throw rateLimited(wait, 'failed sign-in attempts');
+      const ipKey = info.ip ?? 'unknown';
+      const accountKey = email;
+      const wait = Math.max(await limiter.signInIp.retryAfterSeconds(ipKey), await limiter.signInAccount.retryAfterSeconds(accountKey));
+      if (wait > 0) throw rateLimitedError(wait, 'failed sign-in attempts');
 
       const user = await db.reader.findOne(UserEntity, { where: { email } });
       const ok = await verifyPassword(user?.passwordHash ?? null, password);
       if (!user || !ok) {
-        limiter.signInIp.record(ipKey);
-        limiter.signInAccount.record(accountKey);
+        await limiter.signInIp.record(ipKey);
+        await limiter.signInAccount.record(accountKey);
         throw new HttpError(401, 'unauthenticated', signInFailedMessage);
       }
       // Only said after the right password, so it reveals nothing to a guesser.
       if (!user.isActive) throw forbidden('This account has been deactivated. Ask the owner of your shop.');
-      limiter.signInAccount.reset(accountKey);
+      await limiter.signInAccount.reset(accountKey);
 
       const token = newToken();
       const now = clock.now();
@@ -233,13 +230,13 @@ export function createAuthService(deps: AuthServiceDeps) {
      * e-mails a single-use link built from PUBLIC_URL (never from the request's Host header).
      */
     async requestPasswordReset(email: string, info: RequestInfo): Promise<void> {
-      const ipKey = `reset:ip:${info.ip ?? 'unknown'}`;
-      const accountKey = `reset:account:${email}`;
-      const wait = Math.max(limiter.resetIp.retryAfterSeconds(ipKey), limiter.resetAccount.retryAfterSeconds(accountKey));
-      if (wait > 0) throw rateLimited(wait, 'password reset requests');
+      const ipKey = info.ip ?? 'unknown';
+      const accountKey = email;
+      const wait = Math.max(await limiter.resetIp.retryAfterSeconds(ipKey), await limiter.resetAccount.retryAfterSeconds(accountKey));
+      if (wait > 0) throw rateLimitedError(wait, 'password reset requests');
       // Counted whether or not the address exists, so the limit reveals nothing either.
-      limiter.resetIp.record(ipKey);
-      limiter.resetAccount.record(accountKey);
+      await limiter.resetIp.record(ipKey);
+      await limiter.resetAccount.record(accountKey);
 
       const user = await db.reader.findOne(UserEntity, { where: { email } });
       if (!user || !user.isActive) return;

@@ -19,7 +19,7 @@ import {
   type PartListResponse,
   type ResolveResponse,
 } from '@tappet/contracts';
-import type { Database } from '../../db/write-lock';
+import type { Database, WriteWork } from '../../db/write-lock';
 import { assertCatalogueRoom } from '../billing/plan-limits';
 import { HttpError, badRequest, notFound } from '../../lib/http-error';
 import type { Clock } from '../../lib/clock';
@@ -119,21 +119,48 @@ export async function attachDanglingLinks(manager: EntityManager, shopId: string
   );
 }
 
+/** How long a process trusts the catalogue version it last read for a shop (decision 020). */
+export const catalogueVersionCheckMs = 1000;
+
 /**
  * The catalogue: parts, links, fitments and the lineage answers built on them. Each shop's
- * lineage graph is built from the database on first use and cached until the shop's next
- * catalogue write (a per-shop version counter).
+ * lineage graph is built from the database on first use and cached until the shop's catalogue
+ * version (shops.catalogue_version) moves. Every catalogue write moves it in its own transaction,
+ * so other API processes on the database see the change within {@link catalogueVersionCheckMs};
+ * this process sees it at once.
  */
 export function createCatalogueService(deps: { db: Database; clock: Clock }) {
   const { db, clock } = deps;
-  const versions = new Map<string, number>();
+  const versions = new Map<string, { version: number; readAt: number }>();
   const graphs = new Map<string, { version: number; graph: LineageGraph }>();
 
-  /** Marks a shop's cached graph stale; call after every committed catalogue write. */
-  const changed = (shopId: string) => versions.set(shopId, (versions.get(shopId) ?? 0) + 1);
+  /** The shop's catalogue version, read again when the last reading is older than a second. */
+  async function versionOf(shopId: string): Promise<number> {
+    const now = clock.now().getTime();
+    const known = versions.get(shopId);
+    if (known && now - known.readAt < catalogueVersionCheckMs) return known.version;
+    const rows = await db.reader.query<Array<{ version: number | string }>>(`SELECT catalogue_version AS version FROM shops WHERE id = ?`, [shopId]);
+    const version = Number(rows[0]?.version ?? 0);
+    versions.set(shopId, { version, readAt: now });
+    return version;
+  }
+
+  /** A write that changes the shop's parts or links: moves the catalogue version with it. */
+  async function writeCatalogue<T>(shopId: string, work: WriteWork<T>): Promise<T> {
+    let version = 0;
+    const result = await db.write(async (manager) => {
+      const out = await work(manager);
+      const rows = await manager.query<Array<{ version: number | string }>>(`UPDATE shops SET catalogue_version = catalogue_version + 1 WHERE id = ? RETURNING catalogue_version AS version`, [shopId]);
+      version = Number(rows[0]?.version ?? 0);
+      return out;
+    });
+    // Known here only after the commit, so a graph read mid-write is never cached as the new one.
+    versions.set(shopId, { version, readAt: clock.now().getTime() });
+    return result;
+  }
 
   async function graphOf(shopId: string): Promise<LineageGraph> {
-    const version = versions.get(shopId) ?? 0;
+    const version = await versionOf(shopId);
     const cached = graphs.get(shopId);
     if (cached && cached.version === version) return cached.graph;
     const parts = await db.reader.query<LineagePart[]>(`SELECT id, number, status FROM parts WHERE shop_id = ?`, [shopId]);
@@ -186,7 +213,7 @@ export function createCatalogueService(deps: { db: Database; clock: Clock }) {
 
   return {
     graphOf,
-    changed,
+    writeCatalogue,
 
     /** A page of the shop's parts, filtered; each with the number of lineage problems it is in. */
     async list(shopId: string, query: PartListQuery): Promise<PartListResponse> {
@@ -247,7 +274,7 @@ export function createCatalogueService(deps: { db: Database; clock: Clock }) {
         createdAt: now,
         updatedAt: now,
       };
-      await db.write(async (manager) => {
+      await writeCatalogue(shopId, async (manager) => {
         if (await manager.exists(PartEntity, { where: { shopId, key } })) throw conflict(`The shop already has a part numbered like ${input.number}.`);
         await assertCatalogueRoom(manager, shopId, 1);
         await manager.insert(PartEntity, row);
@@ -264,14 +291,13 @@ export function createCatalogueService(deps: { db: Database; clock: Clock }) {
           at: now,
         });
       });
-      changed(shopId);
       return partView(shopId, row.id);
     },
 
     /** Changes a part's fields; a new number must still be unique in the shop. */
     async update(shopId: string, partId: string, patch: PartPatch, actor: AuditActor): Promise<Part> {
       const now = clock.now();
-      await db.write(async (manager) => {
+      await writeCatalogue(shopId, async (manager) => {
         const before = await partRow(manager, shopId, partId);
         const { supplierNumbers, ...fields } = patch;
         const next: Partial<PartRow> = { ...fields };
@@ -296,7 +322,6 @@ export function createCatalogueService(deps: { db: Database; clock: Clock }) {
         }
         await recordAudit(manager, { shopId, actor, action: 'part.updated', entity: 'part', entityId: partId, changes, at: now });
       });
-      changed(shopId);
       return partView(shopId, partId);
     },
 
@@ -371,7 +396,7 @@ export function createCatalogueService(deps: { db: Database; clock: Clock }) {
     /** Links two parts (or a part to a number not in the catalogue yet). Both ends must be the shop's. */
     async createLink(shopId: string, input: LinkCreate, actor: AuditActor): Promise<PartLink> {
       const id = randomUUID();
-      await db.write(async (manager) => {
+      await writeCatalogue(shopId, async (manager) => {
         await partRow(manager, shopId, input.fromPartId);
         let toPartId: string | null;
         let toNumber: string;
@@ -404,12 +429,11 @@ export function createCatalogueService(deps: { db: Database; clock: Clock }) {
         const { id: _i, shopId: _s, ...fields } = row;
         await recordAudit(manager, { shopId, actor, action: 'part_link.created', entity: 'part_link', entityId: id, changes: createdChanges(fields), at: clock.now() });
       });
-      changed(shopId);
       return linkView(shopId, id);
     },
 
     async updateLink(shopId: string, linkId: string, patch: LinkPatch, actor: AuditActor): Promise<PartLink> {
-      await db.write(async (manager) => {
+      await writeCatalogue(shopId, async (manager) => {
         const before = await manager.findOne(PartLinkEntity, { where: { shopId, id: linkId } });
         if (!before) throw noSuchLink();
         const interchange = patch.interchange ?? before.interchange;
@@ -421,12 +445,11 @@ export function createCatalogueService(deps: { db: Database; clock: Clock }) {
         await manager.update(PartLinkEntity, { shopId, id: linkId }, patch);
         await recordAudit(manager, { shopId, actor, action: 'part_link.updated', entity: 'part_link', entityId: linkId, changes, at: clock.now() });
       });
-      changed(shopId);
       return linkView(shopId, linkId);
     },
 
     async deleteLink(shopId: string, linkId: string, actor: AuditActor): Promise<void> {
-      await db.write(async (manager) => {
+      await writeCatalogue(shopId, async (manager) => {
         const before = await manager.findOne(PartLinkEntity, { where: { shopId, id: linkId } });
         if (!before) throw noSuchLink();
         await manager.delete(PartLinkEntity, { shopId, id: linkId });
@@ -434,7 +457,6 @@ export function createCatalogueService(deps: { db: Database; clock: Clock }) {
         const changes = deletedChanges(fields);
         await recordAudit(manager, { shopId, actor, action: 'part_link.deleted', entity: 'part_link', entityId: linkId, changes, at: clock.now() });
       });
-      changed(shopId);
     },
 
     async createFitment(shopId: string, input: FitmentCreate, actor: AuditActor): Promise<Fitment> {

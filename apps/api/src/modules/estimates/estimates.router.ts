@@ -84,7 +84,7 @@ export const defaultApprovalLimit: RateLimitRule = { limit: 60, windowMs: 15 * 6
  * outside any shop's tenancy. The token is the only credential; it travels in the body (never in
  * a path, so no log keeps it). Every request counts against a per-address limit.
  */
-export function estimateApprovalRouter(deps: { estimates: EstimatesService; clock: Clock; store?: RateLimitStore; limit?: RateLimitRule }): Router {
+export function estimateApprovalRouter(deps: { estimates: EstimatesService; clock: Clock; store: RateLimitStore; limit?: RateLimitRule }): Router {
   const { estimates } = deps;
   const router = Router();
   const limited = addressRateLimit({ name: 'estimate-approval', rule: deps.limit ?? defaultApprovalLimit, clock: deps.clock, store: deps.store });

@@ -181,7 +181,7 @@ function page(title: string, body: string): string {
 /** Visits to customers' pay links per address. */
 export const defaultPayLinkLimit: RateLimitRule = { limit: 60, windowMs: 15 * 60_000 };
 
-export function payLinkRouter(deps: { sales: SalesService; clock: Clock; store?: RateLimitStore; limit?: RateLimitRule }): Router {
+export function payLinkRouter(deps: { sales: SalesService; clock: Clock; store: RateLimitStore; limit?: RateLimitRule }): Router {
   const router = Router();
   // Each visit may open a Stripe Checkout session: a per-address limit keeps a script from piling them up.
   router.use(addressRateLimit({ name: 'pay-link', rule: deps.limit ?? defaultPayLinkLimit, clock: deps.clock, store: deps.store }));

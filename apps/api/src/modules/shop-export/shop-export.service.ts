@@ -1,5 +1,3 @@
-import fs from 'node:fs';
-import path from 'node:path';
 import { Readable } from 'node:stream';
 import yazl from 'yazl';
 import type { Database } from '../../db/write-lock';
@@ -7,6 +5,7 @@ import type { Clock } from '../../lib/clock';
 import { recordAudit, type AuditActor } from '../audit/audit.service';
 import { csvLine } from '../audit/csv';
 import type { Shop } from '../shops/shops.entity';
+import type { FileStore } from '../uploads/file-store';
 
 /** Columns that hold secrets (password, token and key hashes) are never exported. */
 export function isSecretColumn(name: string): boolean {
@@ -62,26 +61,6 @@ export async function* tableCsv(db: Database, table: ExportTable, shopId: string
   }
 }
 
-/** Files below `dir` (recursively), regular files only: links are not followed. */
-async function filesBelow(dir: string): Promise<string[]> {
-  const out: string[] = [];
-  const walk = async (current: string) => {
-    let entries: fs.Dirent[];
-    try {
-      entries = await fs.promises.readdir(current, { withFileTypes: true });
-    } catch {
-      return; // no uploads folder: nothing to add
-    }
-    for (const entry of entries.sort((a, b) => a.name.localeCompare(b.name))) {
-      const full = path.join(current, entry.name);
-      if (entry.isDirectory()) await walk(full);
-      else if (entry.isFile()) out.push(full);
-    }
-  };
-  await walk(dir);
-  return out;
-}
-
 const readme = [
   'Tappet shop export',
   '',
@@ -94,14 +73,14 @@ const readme = [
 ].join('\n');
 
 /** The whole-shop export: one streamed zip with a CSV per shop-owned table plus the uploads. */
-export function createShopExportService(deps: { db: Database; clock: Clock; uploadsDir: string; pageSize?: number }) {
-  const { db, clock } = deps;
+export function createShopExportService(deps: { db: Database; clock: Clock; files: FileStore; pageSize?: number }) {
+  const { db, clock, files } = deps;
   return {
     /** Records the export in the audit log and returns the zip as a stream (nothing is buffered whole). */
     async zip(shop: Shop, actor: AuditActor): Promise<NodeJS.ReadableStream> {
       const tables = await shopOwnedTables(db);
-      const uploadsRoot = path.join(deps.uploadsDir, shop.id);
-      const uploads = await filesBelow(uploadsRoot);
+      const uploads: string[] = [];
+      for await (const key of files.list(shop.id)) uploads.push(key);
       await db.write((manager) =>
         recordAudit(manager, { shopId: shop.id, actor, action: 'shop.exported', entity: 'shop', entityId: shop.id, changes: { tables: { before: null, after: tables.length }, uploads: { before: null, after: uploads.length } }, at: clock.now() }),
       );
@@ -115,7 +94,9 @@ export function createShopExportService(deps: { db: Database; clock: Clock; uplo
         // Lazy: each table is read only when the zip reaches it, a page at a time.
         zip.addReadStreamLazy(`tables/${table.name}.csv`, { mtime }, (cb) => cb(null, Readable.from(tableCsv(db, table, shop.id, deps.pageSize))));
       }
-      for (const file of uploads) zip.addFile(file, `uploads/${path.relative(uploadsRoot, file).split(path.sep).join('/')}`);
+      for (const key of uploads) {
+        zip.addReadStreamLazy(`uploads/${key.slice(shop.id.length + 1)}`, { mtime }, (cb) => files.stream(key).then((stream) => cb(null, stream), (err: Error) => cb(err, undefined as never)));
+      }
       zip.end();
       return zip.outputStream;
     },

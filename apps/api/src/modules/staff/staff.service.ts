@@ -9,7 +9,9 @@ import type { Clock } from '../../lib/clock';
 import { HttpError, forbidden, notFound } from '../../lib/http-error';
 import type { Mailer } from '../../lib/mailer';
 import { hashPassword, passwordProblem } from '../../lib/password';
-import { MemoryRateLimitStore, RateLimiter, type RateLimitRule, type RateLimitStore } from '../../lib/rate-limiter';
+import { RateLimiter, type RateLimitRule, type RateLimitStore } from '../../lib/rate-limiter';
+import { databaseRateLimitStore } from '../../db/rate-limit-store';
+import { rateLimitedError } from '../../middleware/rate-limits';
 import { hashToken, newToken } from '../../lib/tokens';
 import { recordAudit, type AuditActor } from '../audit/audit.service';
 import { SessionEntity } from '../auth/auth.entity';
@@ -45,16 +47,12 @@ export type AcceptOutcome = { kind: 'new-account'; email: string; password: stri
 /** Staff of a shop: members, invitations, roles, spending limits, deactivation. */
 export function createStaffService(deps: StaffServiceDeps) {
   const { db, env, clock, mailer } = deps;
-  const sendLimiter = new RateLimiter(deps.invitationSendLimit ?? defaultInvitationSendLimit, clock, deps.rateLimitStore ?? new MemoryRateLimitStore());
+  const sendLimiter = new RateLimiter('invitation-send', deps.invitationSendLimit ?? defaultInvitationSendLimit, clock, deps.rateLimitStore ?? databaseRateLimitStore(db));
 
-  function checkSendLimit(shopId: string): void {
-    const key = `invitation-send:shop:${shopId}`;
-    const wait = sendLimiter.retryAfterSeconds(key);
-    if (wait > 0) {
-      const minutes = Math.ceil(wait / 60);
-      throw new HttpError(429, 'rate_limited', `Too many invitations sent from this shop. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`, { retryAfterSeconds: wait }, { 'Retry-After': String(wait) });
-    }
-    sendLimiter.record(key);
+  /** Counts one invitation e-mail of the shop; 429 past the allowance. Call outside any write. */
+  async function checkSendLimit(shopId: string): Promise<void> {
+    const wait = await sendLimiter.take(shopId);
+    if (wait > 0) throw rateLimitedError(wait, 'invitations sent from this shop');
   }
 
   function sendInvitationMail(shop: Shop, invitation: { email: string; role: ShopRole }, token: string, inviterName: string | null): void {
@@ -148,7 +146,7 @@ export function createStaffService(deps: StaffServiceDeps) {
 
     /** Invites an address with a role and e-mails the link after the commit. */
     async invite(shop: Shop, input: CreateInvitationRequest, actor: AuditActor & { userId: string | null; name: string | null }): Promise<InvitationSummary> {
-      checkSendLimit(shop.id);
+      await checkSendLimit(shop.id);
       const token = newToken();
       const now = clock.now();
       const invitation: Invitation = {
@@ -196,9 +194,13 @@ export function createStaffService(deps: StaffServiceDeps) {
     async resend(shop: Shop, invitationId: string, actor: AuditActor & { name: string | null }): Promise<InvitationSummary> {
       const token = newToken();
       const now = clock.now();
+      const open = { id: invitationId, acceptedAt: IsNull(), withdrawnAt: IsNull() };
+      const noSuchInvitation = 'No such open invitation in this shop.';
+      // Looked up first so that a wrong id is not counted; the count is a write of its own.
+      await shopScoped(db.reader, InvitationEntity, shop.id).findOneOr404(open, noSuchInvitation);
+      await checkSendLimit(shop.id);
       const updated = await db.write(async (manager) => {
-        const invitation = await shopScoped(manager, InvitationEntity, shop.id).findOneOr404({ id: invitationId, acceptedAt: IsNull(), withdrawnAt: IsNull() }, 'No such open invitation in this shop.');
-        checkSendLimit(shop.id);
+        const invitation = await shopScoped(manager, InvitationEntity, shop.id).findOneOr404(open, noSuchInvitation);
         const patch = { tokenHash: hashToken(token), sentAt: now, expiresAt: new Date(now.getTime() + invitationTtlMs) };
         await manager.update(InvitationEntity, { id: invitation.id }, patch);
         await recordAudit(manager, {

@@ -1,11 +1,13 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { randomUUID } from 'node:crypto';
+import type { Readable } from 'node:stream';
 
 /**
  * Where uploaded bytes live. Keys are made by the server (never from a client's file name), with
- * the shop's id first, so one shop's files sit under one prefix. A later issue adds other stores
- * (object storage); callers only see this interface.
+ * the shop's id first, so one shop's files sit under one prefix. Every module that reads or writes
+ * uploads goes through this interface, so several API processes can share one store (an object
+ * store, say) instead of each writing to its own disk; the folder store below is the default.
  */
 export interface FileStore {
   /** Stores `data` under `key`; refuses to overwrite an existing key. */
@@ -16,6 +18,10 @@ export interface FileStore {
   remove(key: string): Promise<void>;
   /** Whether something is stored under `key`. */
   exists(key: string): Promise<boolean>;
+  /** The bytes under `key` as a stream, for files too big to hold (exports, backups). */
+  stream(key: string): Promise<Readable>;
+  /** Every key below `prefix` (a shop's id, say; '' for all), in key order. */
+  list(prefix: string): AsyncIterable<string>;
 }
 
 /** Thrown by {@link FileStore.read} for a key with nothing stored. */
@@ -31,8 +37,15 @@ const keyPattern = /^[a-z0-9-]+(\/[a-z0-9-]+)*(\.[a-z0-9]+)+$/;
 
 /** Refuses anything that is not a server-made key, so no input can reach outside the store. */
 export function assertStorageKey(key: string): void {
-  if (!keyPattern.test(key) || key.length > 200) throw new Error(`Not a storage key: ${JSON.stringify(key)}`);
+  if (!isStorageKey(key)) throw new Error(`Not a storage key: ${JSON.stringify(key)}`);
 }
+
+function isStorageKey(key: string): boolean {
+  return keyPattern.test(key) && key.length <= 200;
+}
+
+/** A prefix to list: '' or folder segments like a key's, without the file name. */
+const prefixPattern = /^([a-z0-9-]+(\/[a-z0-9-]+)*)?$/;
 
 /**
  * A {@link FileStore} in a folder on disk (env.uploadsDir), outside anything the web server
@@ -78,6 +91,33 @@ export function localFileStore(rootDir: string): FileStore {
       } catch {
         return false;
       }
+    },
+    async stream(key) {
+      const handle = await fs.promises.open(full(key), 'r').catch((err: NodeJS.ErrnoException) => {
+        throw err.code === 'ENOENT' ? new FileMissingError(key) : err;
+      });
+      return handle.createReadStream();
+    },
+    async *list(prefix) {
+      if (!prefixPattern.test(prefix)) throw new Error(`Not a storage prefix: ${JSON.stringify(prefix)}`);
+      const keys: string[] = [];
+      const walk = async (dir: string, keyDir: string) => {
+        let entries: fs.Dirent[];
+        try {
+          entries = await fs.promises.readdir(dir, { withFileTypes: true });
+        } catch (err) {
+          if ((err as NodeJS.ErrnoException).code === 'ENOENT') return; // nothing stored there yet
+          throw err;
+        }
+        for (const entry of entries) {
+          const key = keyDir ? `${keyDir}/${entry.name}` : entry.name;
+          // Links are not followed; half-written `.part` files and strays are not keys.
+          if (entry.isDirectory()) await walk(path.join(dir, entry.name), key);
+          else if (entry.isFile() && isStorageKey(key)) keys.push(key);
+        }
+      };
+      await walk(prefix ? path.join(root, ...prefix.split('/')) : root, prefix);
+      yield* keys.sort();
     },
   };
 }

@@ -3,7 +3,7 @@
 import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { csrf, seedShop, signedInAgent } from '../../../test-support/test-app';
+import { csrf, openSecondInstance, seedShop, signedInAgent } from '../../../test-support/test-app';
 import { ShopEntity } from '../../shops/shops.entity';
 import { AuditEventEntity } from '../../audit/audit.entity';
 import { BillingEventEntity, ShopBillingEntity } from '../billing.entity';
@@ -73,6 +73,23 @@ describe('idempotency and order', () => {
     expect(second.status).toBe(200);
     expect(second.body.duplicate).toBe(true);
     expect(await counts()).toEqual(before);
+  });
+
+  it('processes an event once when Stripe delivers it to two app instances on one database', async () => {
+    // Behind a load balancer a redelivery may reach another process: the seen ids are in the database.
+    const other = await openSecondInstance(w.ctx);
+    try {
+      const payload = eventPayload('active');
+      const first = await post(payload, sign(payload));
+      const before = await counts();
+      const again = await request(other.app).post('/api/billing/webhook').set('Content-Type', 'application/json').set('Stripe-Signature', sign(payload)).send(payload);
+      expect(first.body.duplicate).toBe(false);
+      expect(again.status).toBe(200);
+      expect(again.body.duplicate).toBe(true);
+      expect(await counts()).toEqual(before);
+    } finally {
+      await other.close();
+    }
   });
 
   it('takes the state from Stripe, not from the event, so an old event arriving late changes nothing', async () => {

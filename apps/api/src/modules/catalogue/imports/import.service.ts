@@ -410,7 +410,7 @@ export function createImportService(deps: { db: Database; clock: Clock; catalogu
       let committed = false;
       if (input.mode === 'commit' && c.errors.length === 0 && c.added + c.changed > 0) {
         try {
-          await db.write(async (manager) => {
+          await catalogue.writeCatalogue(shopId, async (manager) => {
             // Parts past the plan's catalogue size refuse the whole file, like any other problem.
             if (input.kind === 'parts') await assertCatalogueRoom(manager, shopId, c.added);
             await plan(manager);
@@ -429,7 +429,6 @@ export function createImportService(deps: { db: Database; clock: Clock; catalogu
           if (err instanceof Error && /UNIQUE|FOREIGN KEY/i.test(err.message)) throw new HttpError(409, 'conflict', 'The catalogue changed while the file was being read. Nothing was imported; try again.');
           throw err;
         }
-        catalogue.changed(shopId);
         committed = true;
       }
       return { kind: input.kind, mode: input.mode, rows: c.rows, added: c.added, changed: c.changed, unchanged: c.unchanged, sample: c.sample, errors: c.errors, committed };

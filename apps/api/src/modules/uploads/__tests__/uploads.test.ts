@@ -286,4 +286,32 @@ describe('file store', () => {
     expect(await store.exists('s1/a.pdf')).toBe(false);
     await expect(store.read('s1/a.pdf')).rejects.toThrow(/No stored file/);
   });
+
+  it('streams a stored file and lists keys below a prefix, skipping half-written and stray files', async () => {
+    const dir = path.join(ctx.env.uploadsDir, 'list-test');
+    const store = localFileStore(dir);
+    await store.put('s2/vehicles/v1/b.pdf', tinyPdf);
+    await store.put('s2/vehicles/v1/a.jpg', Buffer.from('a'));
+    await store.put('s2/jobs/j1/c.pdf', Buffer.from('c'));
+    await store.put('s3/d.pdf', Buffer.from('d'));
+    // What an interrupted put leaves behind, and a file no server-made key names.
+    fs.writeFileSync(path.join(dir, 's2', 'vehicles', 'v1', 'e.pdf.0b8c6f2e-1f0e-4c55-9d3a-2f5c8f1d9a7b.part'), 'half');
+    fs.writeFileSync(path.join(dir, 's2', 'Notes.TXT'), 'stray');
+    const list = async (prefix: string) => {
+      const keys: string[] = [];
+      for await (const key of store.list(prefix)) keys.push(key);
+      return keys;
+    };
+    expect(await list('s2')).toEqual(['s2/jobs/j1/c.pdf', 's2/vehicles/v1/a.jpg', 's2/vehicles/v1/b.pdf']);
+    expect(await list('s2/vehicles')).toEqual(['s2/vehicles/v1/a.jpg', 's2/vehicles/v1/b.pdf']);
+    expect(await list('')).toEqual(['s2/jobs/j1/c.pdf', 's2/vehicles/v1/a.jpg', 's2/vehicles/v1/b.pdf', 's3/d.pdf']);
+    expect(await list('s9')).toEqual([]);
+    for (const bad of ['..', 's2/..', '/etc', 's2/', 'S2']) await expect(list(bad), bad).rejects.toThrow(/Not a storage prefix/);
+
+    const chunks: Buffer[] = [];
+    for await (const chunk of await store.stream('s2/vehicles/v1/b.pdf')) chunks.push(chunk as Buffer);
+    expect(Buffer.compare(Buffer.concat(chunks), tinyPdf)).toBe(0);
+    await expect(store.stream('s2/missing.pdf')).rejects.toThrow(/No stored file/);
+    await expect(store.stream('../outside.pdf')).rejects.toThrow(/Not a storage key/);
+  });
 });
