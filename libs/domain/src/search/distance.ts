@@ -87,3 +87,45 @@ export function foldedTyposWithin(typed: string, key: string): number | null {
   const d = osaDistance(typed, key, tolerance);
   return d <= tolerance ? d : null;
 }
+
+/**
+ * Whether the folded typed key is within the typo tolerance of the folded key `text[start, end)`
+ * or of one of its tails of `minTail` characters or more (the printed prefix left out): the same answer
+ * as `foldedTyposWithin(typed, tail)` over the whole key and every such tail, from one table
+ * instead of one per tail. The table runs over both strings reversed, so row i holds the distance
+ * from the typed key to the key's last i characters (optimal string alignment reads the same
+ * either way round), and it stops once a row's minimum passes the largest tolerance (rows never
+ * get better). No allocation: the lookup runs this on hundreds of candidates per keystroke.
+ */
+export function foldedTyposWithinKeyOrTail(typed: string, text: string, start: number, end: number, minTail: number): boolean {
+  const m = typed.length;
+  const n = end - start;
+  if (n <= 0) return false;
+  if (tailRows[0].length <= m) tailRows = [new Int32Array(2 * m + 2), new Int32Array(2 * m + 2), new Int32Array(2 * m + 2)];
+  let [before, previous, current] = tailRows;
+  for (let j = 0; j <= m; j++) previous[j] = j;
+  const largest = typoTolerance(Number.MAX_SAFE_INTEGER);
+  for (let i = 1; i <= n; i++) {
+    current[0] = i;
+    let rowMin = i;
+    const ki = text.charCodeAt(end - i);
+    const kBefore = i > 1 ? text.charCodeAt(end - i + 1) : -1;
+    for (let j = 1; j <= m; j++) {
+      const tj = typed.charCodeAt(m - j);
+      let value = previous[j]! + 1;
+      const left = current[j - 1]! + 1;
+      if (left < value) value = left;
+      const diagonal = previous[j - 1]! + (ki === tj ? 0 : 1);
+      if (diagonal < value) value = diagonal;
+      if (j > 1 && kBefore === tj && ki === typed.charCodeAt(m - j + 1) && before[j - 2]! + 1 < value) value = before[j - 2]! + 1;
+      current[j] = value;
+      if (value < rowMin) rowMin = value;
+    }
+    if ((i === n || i >= minTail) && current[m]! <= typoTolerance(i)) return true;
+    if (rowMin > largest) return false;
+    [before, previous, current] = [previous, current, before];
+  }
+  return false;
+}
+
+let tailRows: [Int32Array, Int32Array, Int32Array] = [new Int32Array(64), new Int32Array(64), new Int32Array(64)];
