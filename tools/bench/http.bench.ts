@@ -18,7 +18,8 @@ import { generateParts, insertLinks, insertParts, partsCsv, pickWith, typo } fro
 import { prng, single, type Figure } from './harness';
 
 const repo = fileURLToPath(new URL('../..', import.meta.url));
-const PORT = 3970;
+// BENCH_HTTP_PORT lets helpers sharing a machine run it side by side.
+const PORT = Number(process.env.BENCH_HTTP_PORT ?? 3970);
 const base = `http://127.0.0.1:${PORT}`;
 const CONNECTIONS = 10;
 const SECONDS = 10;
