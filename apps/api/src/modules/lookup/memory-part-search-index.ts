@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import { foldLookalikes, trigramsOf, wordsOf, type PartNumberEntry } from '@tappet/domain';
+import { breathe } from '../../lib/breathe';
 import { oneEditPatterns, type PartSearchFilters, type PartSearchIndex, type SearchablePart, type SearchCandidate } from './part-search-index';
 
 // An in-memory `PartSearchIndex` (docs/decisions/014): each shop's searchable text is read from the
@@ -21,8 +22,6 @@ const LOAD_CHUNK = 500;
  * stall other requests.
  */
 const BUILD_SLICE = 5_000;
-/** Lets timers and I/O (other requests) run before the build goes on. */
-const breathe = () => new Promise<void>((resolve) => setImmediate(resolve));
 
 /** A posting list: the documents holding a trigram, once per occurrence, in document order. */
 interface Postings {

@@ -192,6 +192,16 @@ describe('the in-memory index follows the catalogue', () => {
 });
 
 describe('the cache', () => {
+  it('concurrent callers share one lineage graph (the version token), rebuilt after a change', async () => {
+    const catalogue = createCatalogueService({ db: ctx.db, clock: ctx.clock });
+    const [a, b] = await Promise.all([catalogue.graphOf(otherShopId), catalogue.graphOf(otherShopId)]);
+    expect(a).toBe(b);
+    catalogue.changed(otherShopId);
+    const c = await catalogue.graphOf(otherShopId);
+    expect(c).not.toBe(a);
+    expect(await catalogue.graphOf(otherShopId)).toBe(c);
+  });
+
   it('builds once per catalogue version, and concurrent lookups share one build', async () => {
     let version = 1;
     const index = memoryPartSearchIndex({ reader: () => ctx.db.reader, versionOf: () => version });
