@@ -101,10 +101,11 @@ export function foldedTyposWithinKeyOrTail(typed: string, text: string, start: n
   const m = typed.length;
   const n = end - start;
   if (n <= 0) return false;
+  const largest = typoTolerance(Number.MAX_SAFE_INTEGER);
+  if (missingFrom(typed, text, start, end) > largest) return false;
   if (tailRows[0].length <= m) tailRows = [new Int32Array(2 * m + 2), new Int32Array(2 * m + 2), new Int32Array(2 * m + 2)];
   let [before, previous, current] = tailRows;
   for (let j = 0; j <= m; j++) previous[j] = j;
-  const largest = typoTolerance(Number.MAX_SAFE_INTEGER);
   for (let i = 1; i <= n; i++) {
     current[0] = i;
     let rowMin = i;
@@ -127,5 +128,29 @@ export function foldedTyposWithinKeyOrTail(typed: string, text: string, start: n
   }
   return false;
 }
+
+/**
+ * How many of the typed key's characters (counted with repeats) `text[start, end)` lacks: a lower
+ * bound on the distance to it and to every tail of it, since each edit supplies at most one
+ * missing character. Counting is linear, so most candidates are turned away before any table.
+ * 0 (no bound) when the typed key holds a character outside ASCII.
+ */
+function missingFrom(typed: string, text: string, start: number, end: number): number {
+  for (let j = 0; j < typed.length; j++) if (typed.charCodeAt(j) >= 128) return 0;
+  for (let j = 0; j < typed.length; j++) wanted[typed.charCodeAt(j)]!++;
+  for (let i = start; i < end; i++) {
+    const c = text.charCodeAt(i);
+    if (c < 128 && wanted[c]! > 0) wanted[c]!--;
+  }
+  let missing = 0;
+  for (let j = 0; j < typed.length; j++) {
+    const c = typed.charCodeAt(j);
+    missing += wanted[c]!;
+    wanted[c] = 0;
+  }
+  return missing;
+}
+
+const wanted = new Int32Array(128);
 
 let tailRows: [Int32Array, Int32Array, Int32Array] = [new Int32Array(64), new Int32Array(64), new Int32Array(64)];
