@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { foldLookalikes, osaDistance, partNumberDistance, typoTolerance, typosWithin } from './distance';
+import { foldedTyposWithin, foldedTyposWithinKeyOrTail, foldLookalikes, osaDistance, partNumberDistance, typoTolerance, typosWithin } from './distance';
 
 const keyChar = fc.constantFrom(...'ABCDEFGHIJKLMNOPQRSTUVWXYZ0123456789'.split(''));
 const key = fc.string({ unit: keyChar, minLength: 1, maxLength: 14 });
@@ -106,5 +106,34 @@ describe('typo tolerance', () => {
       }),
       { numRuns: 200 },
     );
+  });
+});
+
+describe('foldedTyposWithinKeyOrTail', () => {
+  /** The definition it replaces: the whole key, then every tail of `minTail` characters or more, one distance each. */
+  const reference = (typed: string, k: string, minTail: number) => {
+    if (foldedTyposWithin(typed, k) !== null) return true;
+    for (let j = 1; k.length - j >= minTail; j++) if (foldedTyposWithin(typed, k.slice(j)) !== null) return true;
+    return false;
+  };
+  // A small alphabet so near keys, swaps and shared tails are common.
+  const near = fc.string({ unit: fc.constantFrom(...'AB01CX'.split('')), minLength: 0, maxLength: 12 });
+
+  it('answers as the whole key and each of its tails measured one by one', () => {
+    fc.assert(
+      fc.property(near, near, fc.string({ unit: fc.constantFrom(' ', 'X'), maxLength: 3 }), fc.integer({ min: 1, max: 4 }), (typed, k, pad, minTail) => {
+        // The key sits inside a longer text (as in the index's space-separated keys).
+        const text = `${pad} ${k} ${pad}`;
+        const start = pad.length + 1;
+        expect(foldedTyposWithinKeyOrTail(typed, text, start, start + k.length, minTail)).toBe(k.length > 0 && reference(typed, k, minTail));
+      }),
+      { numRuns: 5000 },
+    );
+  });
+
+  it('finds a number typed without its prefix, with a typo, and refuses one too far', () => {
+    expect(foldedTyposWithinKeyOrTail('3465', '713456', 0, 6, 3)).toBe(true);
+    expect(foldedTyposWithinKeyOrTail('KV12345', ' 71 KV12354 ', 4, 11, 3)).toBe(true);
+    expect(foldedTyposWithinKeyOrTail('9999', '713456', 0, 6, 3)).toBe(false);
   });
 });

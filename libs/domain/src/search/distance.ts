@@ -87,3 +87,70 @@ export function foldedTyposWithin(typed: string, key: string): number | null {
   const d = osaDistance(typed, key, tolerance);
   return d <= tolerance ? d : null;
 }
+
+/**
+ * Whether the folded typed key is within the typo tolerance of the folded key `text[start, end)`
+ * or of one of its tails of `minTail` characters or more (the printed prefix left out): the same answer
+ * as `foldedTyposWithin(typed, tail)` over the whole key and every such tail, from one table
+ * instead of one per tail. The table runs over both strings reversed, so row i holds the distance
+ * from the typed key to the key's last i characters (optimal string alignment reads the same
+ * either way round), and it stops once a row's minimum passes the largest tolerance (rows never
+ * get better). No allocation: the lookup runs this on hundreds of candidates per keystroke.
+ */
+export function foldedTyposWithinKeyOrTail(typed: string, text: string, start: number, end: number, minTail: number): boolean {
+  const m = typed.length;
+  const n = end - start;
+  if (n <= 0) return false;
+  const largest = typoTolerance(Number.MAX_SAFE_INTEGER);
+  if (missingFrom(typed, text, start, end) > largest) return false;
+  if (tailRows[0].length <= m) tailRows = [new Int32Array(2 * m + 2), new Int32Array(2 * m + 2), new Int32Array(2 * m + 2)];
+  let [before, previous, current] = tailRows;
+  for (let j = 0; j <= m; j++) previous[j] = j;
+  for (let i = 1; i <= n; i++) {
+    current[0] = i;
+    let rowMin = i;
+    const ki = text.charCodeAt(end - i);
+    const kBefore = i > 1 ? text.charCodeAt(end - i + 1) : -1;
+    for (let j = 1; j <= m; j++) {
+      const tj = typed.charCodeAt(m - j);
+      let value = previous[j]! + 1;
+      const left = current[j - 1]! + 1;
+      if (left < value) value = left;
+      const diagonal = previous[j - 1]! + (ki === tj ? 0 : 1);
+      if (diagonal < value) value = diagonal;
+      if (j > 1 && kBefore === tj && ki === typed.charCodeAt(m - j + 1) && before[j - 2]! + 1 < value) value = before[j - 2]! + 1;
+      current[j] = value;
+      if (value < rowMin) rowMin = value;
+    }
+    if ((i === n || i >= minTail) && current[m]! <= typoTolerance(i)) return true;
+    if (rowMin > largest) return false;
+    [before, previous, current] = [previous, current, before];
+  }
+  return false;
+}
+
+/**
+ * How many of the typed key's characters (counted with repeats) `text[start, end)` lacks: a lower
+ * bound on the distance to it and to every tail of it, since each edit supplies at most one
+ * missing character. Counting is linear, so most candidates are turned away before any table.
+ * 0 (no bound) when the typed key holds a character outside ASCII.
+ */
+function missingFrom(typed: string, text: string, start: number, end: number): number {
+  for (let j = 0; j < typed.length; j++) if (typed.charCodeAt(j) >= 128) return 0;
+  for (let j = 0; j < typed.length; j++) wanted[typed.charCodeAt(j)]!++;
+  for (let i = start; i < end; i++) {
+    const c = text.charCodeAt(i);
+    if (c < 128 && wanted[c]! > 0) wanted[c]!--;
+  }
+  let missing = 0;
+  for (let j = 0; j < typed.length; j++) {
+    const c = typed.charCodeAt(j);
+    missing += wanted[c]!;
+    wanted[c] = 0;
+  }
+  return missing;
+}
+
+const wanted = new Int32Array(128);
+
+let tailRows: [Int32Array, Int32Array, Int32Array] = [new Int32Array(64), new Int32Array(64), new Int32Array(64)];

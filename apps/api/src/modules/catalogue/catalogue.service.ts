@@ -22,6 +22,7 @@ import {
 import type { Database, WriteWork } from '../../db/write-lock';
 import { assertCatalogueRoom } from '../billing/plan-limits';
 import { HttpError, badRequest, notFound } from '../../lib/http-error';
+import { breathe } from '../../lib/breathe';
 import type { Clock } from '../../lib/clock';
 import { diffChanges, recordAudit, type AuditActor } from '../audit/audit.service';
 import { FitmentEntity, PartEntity, PartLinkEntity, PartSupplierNumberEntity, type FitmentRow, type PartLinkRow, type PartRow } from './catalogue.entity';
@@ -122,6 +123,9 @@ export async function attachDanglingLinks(manager: EntityManager, shopId: string
 /** How long a process trusts the catalogue version it last read for a shop (decision 020). */
 export const catalogueVersionCheckMs = 1000;
 
+/** Parts read per statement when a shop's lineage graph is built. */
+const GRAPH_READ_PAGE = 10_000;
+
 /**
  * The catalogue: parts, links, fitments and the lineage answers built on them. Each shop's
  * lineage graph is built from the database on first use and cached until the shop's catalogue
@@ -159,18 +163,54 @@ export function createCatalogueService(deps: { db: Database; clock: Clock }) {
     return result;
   }
 
+  /** Graph builds under way, shared by every caller asking for the same version. */
+  const building = new Map<string, { version: number; graph: Promise<LineageGraph> }>();
+
   async function graphOf(shopId: string): Promise<LineageGraph> {
     const version = await versionOf(shopId);
     const cached = graphs.get(shopId);
     if (cached && cached.version === version) return cached.graph;
-    const parts = await db.reader.query<LineagePart[]>(`SELECT id, number, status FROM parts WHERE shop_id = ?`, [shopId]);
+    const pending = building.get(shopId);
+    if (pending && pending.version === version) return pending.graph;
+    const graph = readGraph(shopId)
+      .then((built) => {
+        if ((graphs.get(shopId)?.version ?? -1) < version) graphs.set(shopId, { version, graph: built });
+        return built;
+      })
+      .finally(() => {
+        if (building.get(shopId)?.graph === graph) building.delete(shopId);
+      });
+    building.set(shopId, { version, graph });
+    return graph;
+  }
+
+  /**
+   * The shop's parts (in pages by rowid, pausing between them: one statement over 200,000 rows
+   * holds the event loop for most of a second) and links, as a lineage graph. A write committed
+   * between pages bumps the version, so the graph read here serves only callers that asked before
+   * it; a link from a part added meanwhile is left out rather than failing the build.
+   */
+  async function readGraph(shopId: string): Promise<LineageGraph> {
+    const parts: LineagePart[] = [];
+    for (let after = Number.MIN_SAFE_INTEGER; ; ) {
+      const page = await db.reader.query<Array<LineagePart & { rowid: number }>>(
+        `SELECT rowid, id, number, status FROM parts WHERE shop_id = ? AND rowid > ? ORDER BY rowid LIMIT ?`,
+        [shopId, after, GRAPH_READ_PAGE],
+      );
+      for (const { rowid: _, ...part } of page) parts.push(part);
+      if (page.length < GRAPH_READ_PAGE) break;
+      after = page[page.length - 1]!.rowid;
+      await breathe();
+    }
     const rows = await db.reader.query<Array<{ id: string; kind: LineageLink['kind']; fromId: string; toId: string | null; toNumber: string; quantity: number; interchange: LineageLink['interchange'] }>>(
       `SELECT id, kind, from_part_id AS fromId, to_part_id AS toId, to_number AS toNumber, quantity, interchange FROM part_links WHERE shop_id = ?`,
       [shopId],
     );
-    const graph = buildLineageGraph(parts, rows);
-    graphs.set(shopId, { version, graph });
-    return graph;
+    const known = new Set(parts.map((p) => p.id));
+    return buildLineageGraph(
+      parts,
+      rows.filter((r) => known.has(r.fromId)),
+    );
   }
 
   async function partRow(manager: EntityManager, shopId: string, partId: string): Promise<PartRow> {

@@ -1,5 +1,5 @@
 import Fuse from 'fuse.js';
-import { foldedTyposWithin, foldLookalikes, lineageReason, validateGs1, matchDescription, matchNumber, mergeHits, MIN_SUBSTRING_QUERY, normalisePartNumber, type LineageGraph, type SearchHit } from '@tappet/domain';
+import { foldedTyposWithinKeyOrTail, foldLookalikes, lineageReason, validateGs1, matchDescription, matchNumber, mergeHits, MIN_SUBSTRING_QUERY, normalisePartNumber, type LineageGraph, type SearchHit } from '@tappet/domain';
 import type { PartSearchQueryParsed, PartSearchResponse, StockSummary } from '@tappet/contracts';
 import type { PartSearchFilters, PartSearchIndex, SearchablePart } from './part-search-index';
 
@@ -22,15 +22,35 @@ export function nearEnough(key: string, keys: string): boolean {
 
 /** `nearEnough` for a typed key already folded (the index's keys are folded when indexed). */
 function nearEnoughFolded(folded: string, keys: string): boolean {
-  for (const k of keys.split(' ')) {
-    if (!k) continue;
-    if (foldedTyposWithin(folded, k) !== null) return true;
-    // Tails at most two characters longer or shorter than the typed key can be within tolerance.
-    for (let j = Math.max(1, k.length - folded.length - 2); k.length - j >= MIN_SUBSTRING_QUERY && k.length - j >= folded.length - 2; j++) {
-      if (foldedTyposWithin(folded, k.slice(j)) !== null) return true;
-    }
+  for (let start = 0; start < keys.length; ) {
+    let end = keys.indexOf(' ', start);
+    if (end < 0) end = keys.length;
+    if (end > start && foldedTyposWithinKeyOrTail(folded, keys, start, end, MIN_SUBSTRING_QUERY)) return true;
+    start = end + 1;
   }
   return false;
+}
+
+/**
+ * Gives each scored hit its fuse.js score as a tie-break, where one can matter: only hits sharing
+ * kind and rank with another hit are ever compared by it, and a part's fuse.js score depends on
+ * that part alone (no collection statistics), so fuse.js runs over those parts only and the
+ * order is the one scoring every candidate would give.
+ */
+function breakTies(q: string, unscored: readonly SearchHit[], scored: readonly SearchHit[], byId: ReadonlyMap<string, SearchablePart>): void {
+  const group = (h: SearchHit) => `${h.match} ${h.rank}`;
+  const sizes = new Map<string, number>();
+  for (const h of unscored) sizes.set(group(h), (sizes.get(group(h)) ?? 0) + 1);
+  for (const h of scored) sizes.set(group(h), (sizes.get(group(h)) ?? 0) + 1);
+  const tied = new Set<string>();
+  for (const h of scored) if (sizes.get(group(h))! > 1) tied.add(h.partId);
+  if (tied.size === 0) return;
+  const fuse = new Fuse(
+    [...tied].map((id) => byId.get(id)!).map((p) => ({ id: p.id, numbers: p.numbers.map((n) => n.number), description: p.description })),
+    { keys: ['numbers', 'description'], includeScore: true, ignoreLocation: true, threshold: 1 },
+  );
+  const score = new Map(fuse.search(q).map((r) => [r.item.id, r.score ?? 1]));
+  for (const h of scored) if (tied.has(h.partId)) h.tieBreak = score.get(h.partId);
 }
 
 /**
@@ -101,26 +121,23 @@ export function createLookupService(deps: {
       const parts = await index.load(shopId, ids, filters);
       const byId = new Map(parts.map((p) => [p.id, p]));
 
-      // fuse.js over the candidates only: a tie-break inside each kind of match.
-      const fuse = new Fuse(
-        parts.map((p) => ({ id: p.id, numbers: p.numbers.map((n) => n.number), description: p.description })),
-        { keys: ['numbers', 'description'], includeScore: true, ignoreLocation: true, threshold: 1 },
-      );
-      const tieBreak = new Map(fuse.search(q).map((r) => [r.item.id, r.score ?? 1]));
-
       const hits: SearchHit[] = lineageHits.filter((h) => byId.has(h.partId));
       if (barcodePartId && byId.has(barcodePartId)) hits.push({ partId: barcodePartId, match: 'exact', reason: `supplier barcode ${digits}`, rank: 0 });
+      /** Hits that fuse.js's score breaks ties for (lineage and barcode hits have none). */
+      const scored: SearchHit[] = [];
       for (const part of parts) {
         const number = matchNumber(q, part.numbers);
-        if (number) hits.push({ partId: part.id, ...number, tieBreak: tieBreak.get(part.id) });
+        if (number) scored.push({ partId: part.id, ...number });
         const words = q.length >= MIN_SUBSTRING_QUERY ? matchDescription(q, part.description) : null;
         if (words) {
           const reason = `description words: ${words.words.join(' ')}`;
           // Whole words rank after numbers containing the query; typo'd words after typo'd numbers.
-          if (words.typos === 0) hits.push({ partId: part.id, match: 'partial', reason, rank: 10, tieBreak: tieBreak.get(part.id) });
-          else hits.push({ partId: part.id, match: 'fuzzy', reason, rank: 10 + words.typos, tieBreak: tieBreak.get(part.id) });
+          if (words.typos === 0) scored.push({ partId: part.id, match: 'partial', reason, rank: 10 });
+          else scored.push({ partId: part.id, match: 'fuzzy', reason, rank: 10 + words.typos });
         }
       }
+      breakTies(q, hits, scored, byId);
+      hits.push(...scored);
 
       const merged = mergeHits(hits, query.limit);
       // Every result with its stock, lineage relatives too: "none of this number, but 3 of its replacement in B-04".

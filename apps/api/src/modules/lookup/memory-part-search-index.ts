@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import { foldLookalikes, trigramsOf, wordsOf, type PartNumberEntry } from '@tappet/domain';
+import { breathe } from '../../lib/breathe';
 import { oneEditPatterns, type PartSearchFilters, type PartSearchIndex, type SearchablePart, type SearchCandidate } from './part-search-index';
 
 // An in-memory `PartSearchIndex` (docs/decisions/014): each shop's searchable text is read from the
@@ -15,6 +16,12 @@ const B = 0.75;
 const MIN_TWO_TYPO_QUERY = 6;
 /** `load` answers in chunks, each ordered by id, as the SQLite index's `IN (…)` query does. */
 const LOAD_CHUNK = 500;
+/**
+ * Parts read per statement when a shop's index is built, and documents handled between pauses:
+ * a build lets other callbacks run between slices, so a rebuild after a catalogue write does not
+ * stall other requests.
+ */
+const BUILD_SLICE = 5_000;
 
 /** A posting list: the documents holding a trigram, once per occurrence, in document order. */
 interface Postings {
@@ -80,12 +87,26 @@ class GramTable {
   private documents = new Int32Array(GRAM_SPACE);
   private other = new Map<string, Postings>();
 
-  /** Builds from lower-cased texts, one per document; windows of anything but letters and digits are left out (typed trigrams hold nothing else). */
-  constructor(texts: readonly string[]) {
+  /**
+   * Builds from lower-cased texts, one per document; windows of anything but letters and digits
+   * are left out (typed trigrams hold nothing else). Yields to the event loop between slices.
+   */
+  static async build(texts: readonly string[], slice: number): Promise<GramTable> {
+    const table = new GramTable();
+    await table.fill(texts, slice);
+    return table;
+  }
+
+  private async fill(texts: readonly string[], slice: number): Promise<void> {
     const counts = new Int32Array(GRAM_SPACE + 1);
     const otherLists = new Map<string, number[]>();
-    const wide: Array<string[] | null> = texts.map((t) => (isAscii(t) ? null : [...t]));
+    const wide: Array<string[] | null> = new Array<string[] | null>(texts.length);
     for (let doc = 0; doc < texts.length; doc++) {
+      if (doc % slice === slice - 1) await breathe();
+      wide[doc] = isAscii(texts[doc]!) ? null : [...texts[doc]!];
+    }
+    for (let doc = 0; doc < texts.length; doc++) {
+      if (doc % slice === slice - 1) await breathe();
       const text = texts[doc]!;
       const chars = wide[doc];
       if (!chars) {
@@ -114,6 +135,7 @@ class GramTable {
     const docs = this.docs;
     const documents = this.documents;
     for (let doc = 0; doc < texts.length; doc++) {
+      if (doc % slice === slice - 1) await breathe();
       const text = texts[doc]!;
       const chars = wide[doc];
       const n = chars ? chars.length : text.length;
@@ -149,7 +171,40 @@ interface SortedKeys {
   keys: string[];
   docs: Map<string, number[]>;
 }
-const sortedKeys = (docs: Map<string, number[]>): SortedKeys => ({ keys: [...docs.keys()].sort(), docs });
+const sortedKeys = async (docs: Map<string, number[]>, slice: number): Promise<SortedKeys> => ({ keys: await sortYielding([...docs.keys()], slice), docs });
+
+/**
+ * Distinct strings in code-unit order (as `Array.prototype.sort()` puts them), sorted in runs and
+ * merged with pauses between slices: one sort of 200,000 keys holds the event loop for a few
+ * hundred milliseconds.
+ */
+export async function sortYielding(keys: string[], slice: number): Promise<string[]> {
+  const run = 4 * slice;
+  for (let from = 0; from < keys.length; from += run) {
+    const sorted = keys.slice(from, from + run).sort();
+    for (let i = 0; i < sorted.length; i++) keys[from + i] = sorted[i]!;
+    await breathe();
+  }
+  let source = keys;
+  let target = new Array<string>(keys.length);
+  let since = 0;
+  for (let width = run; width < keys.length; width *= 2) {
+    for (let left = 0; left < keys.length; left += 2 * width) {
+      const middle = Math.min(left + width, keys.length);
+      const end = Math.min(left + 2 * width, keys.length);
+      let i = left;
+      let j = middle;
+      for (let k = left; k < end; k++) target[k] = j >= end || (i < middle && source[i]! < source[j]!) ? source[i++]! : source[j++]!;
+      since += end - left;
+      if (since >= run) {
+        since = 0;
+        await breathe();
+      }
+    }
+    [source, target] = [target, source];
+  }
+  return source;
+}
 
 /** First position in sorted `keys` not below `key`. */
 function lowerBound(keys: readonly string[], key: string): number {
@@ -175,16 +230,28 @@ const reverse = (s: string) => {
   return out;
 };
 
-/** Builds one shop's index from its rows (parts in rowid order; numbers ordered by part, then key). */
-export function buildShopIndex(
+/** Builds one shop's index from its rows (parts in rowid order; numbers ordered by part, then key), yielding to the event loop between slices. */
+export async function buildShopIndex(
   parts: Array<Omit<SearchablePart, 'numbers' | 'category'> & { category: string | null }>,
   supplier: Array<{ partId: string; number: string; key: string }>,
   equivalents: Array<{ partId: string; number: string; key: string }>,
-): ShopIndex {
+  slice = BUILD_SLICE,
+): Promise<ShopIndex> {
   const size = parts.length;
   const docOf = new Map<string, number>();
-  parts.forEach((p, doc) => docOf.set(p.id, doc));
-  const numbers: PartNumberEntry[][] = parts.map((p) => [{ number: p.number, key: p.key, source: 'own' }]);
+  const numbers: PartNumberEntry[][] = new Array<PartNumberEntry[]>(size);
+  const rows: ShopIndex['rows'] = new Array<ShopIndex['rows'][number]>(size);
+  const categories: Array<string | null> = new Array<string | null>(size);
+  const descriptions: string[] = new Array<string>(size);
+  for (let doc = 0; doc < size; doc++) {
+    if (doc % slice === slice - 1) await breathe();
+    const p = parts[doc]!;
+    docOf.set(p.id, doc);
+    numbers[doc] = [{ number: p.number, key: p.key, source: 'own' }];
+    rows[doc] = { id: p.id, number: p.number, key: p.key, description: p.description, origin: p.origin, category: p.category, status: p.status };
+    categories[doc] = p.category === null ? null : nocase(p.category);
+    descriptions[doc] = p.description;
+  }
   const none: string[] = [];
   const supplierKeys: string[][] = new Array<string[]>(size).fill(none);
   const equivalentKeys: string[][] = new Array<string[]>(size).fill(none);
@@ -219,6 +286,7 @@ export function buildShopIndex(
   let totalTokens = 0;
 
   for (let doc = 0; doc < size; doc++) {
+    if (doc % slice === slice - 1) await breathe();
     const part = parts[doc]!;
     addKey(byRawKey, part.key, doc);
     for (const k of supplierKeys[doc]!) addKey(byRawKey, k, doc);
@@ -241,28 +309,31 @@ export function buildShopIndex(
   }
   return {
     size,
-    rows: parts.map((p) => ({ id: p.id, number: p.number, key: p.key, description: p.description, origin: p.origin, category: p.category, status: p.status })),
+    rows,
     numbers,
     docOf,
-    categories: parts.map((p) => (p.category === null ? null : nocase(p.category))),
+    categories,
     keysText,
-    descriptions: parts.map((p) => p.description),
+    descriptions,
     byRawKey,
-    prefixKeys: sortedKeys(prefixKeys),
-    foldedKeys: sortedKeys(byFoldedKey),
-    reversedKeys: sortedKeys(byReversedKey),
-    keyGrams: new GramTable(keysLower),
-    descriptionGrams: new GramTable(descriptionsLower),
+    prefixKeys: await sortedKeys(prefixKeys, slice),
+    foldedKeys: await sortedKeys(byFoldedKey, slice),
+    reversedKeys: await sortedKeys(byReversedKey, slice),
+    keyGrams: await GramTable.build(keysLower, slice),
+    descriptionGrams: await GramTable.build(descriptionsLower, slice),
     rowTokens,
     averageTokens: size === 0 ? 1 : totalTokens / size,
     scores: new Float64Array(size),
   };
 }
 
-/** Whether `text` is LIKE `% <head>%<tail> %` (the one-gap pattern), exactly as SQLite evaluates it. */
-function likeGap(text: string, head: string, tail: string): boolean {
-  const at = text.indexOf(` ${head}`);
-  return at >= 0 && text.indexOf(`${tail} `, at + 1 + head.length) >= 0;
+/**
+ * Whether `text` is LIKE `% <head>%<tail> %` (the one-gap pattern), exactly as SQLite evaluates it;
+ * `spacedHead` is " " + head and `spacedTail` tail + " " (made once per pattern, not per row).
+ */
+function likeGap(text: string, spacedHead: string, spacedTail: string): boolean {
+  const at = text.indexOf(spacedHead);
+  return at >= 0 && text.indexOf(spacedTail, at + spacedHead.length) >= 0;
 }
 
 /**
@@ -314,6 +385,8 @@ export interface MemoryPartSearchIndexOptions {
    * Compared with `===`.
    */
   versionOf: (shopId: string) => unknown;
+  /** Parts read per statement and documents built between pauses (tests use a small one to cross many slices). */
+  slice?: number;
 }
 
 /** A memory index, plus a way to see how often it was built (for tests). */
@@ -331,6 +404,7 @@ export interface MemoryPartSearchIndex extends PartSearchIndex {
  */
 export function memoryPartSearchIndex(options: MemoryPartSearchIndexOptions): MemoryPartSearchIndex {
   const { reader, versionOf } = options;
+  const slice = options.slice ?? BUILD_SLICE;
   interface Entry {
     /** Clock tick when its rows were read: it holds every write committed before then. */
     readAt: number;
@@ -346,10 +420,21 @@ export function memoryPartSearchIndex(options: MemoryPartSearchIndexOptions): Me
   async function read(shopId: string, readAt: number): Promise<Entry> {
     buildCount++;
     const db = reader();
-    const parts = await db.query<Array<Omit<SearchablePart, 'numbers'>>>(
-      `SELECT id, number, key, description, origin, category, status FROM parts WHERE shop_id = ? ORDER BY rowid`,
-      [shopId],
-    );
+    // Read in pages by rowid with a pause between them: one statement over 200,000 rows holds the
+    // event loop for most of a second. A write committed between pages may be half seen; only
+    // lookups that arrived before this read began are served from it (see indexOf), and they
+    // need no write after their arrival.
+    const parts: Array<Omit<SearchablePart, 'numbers'> & { rowid: number }> = [];
+    for (let after = Number.MIN_SAFE_INTEGER; ; ) {
+      const page = await db.query<Array<Omit<SearchablePart, 'numbers'> & { rowid: number }>>(
+        `SELECT rowid, id, number, key, description, origin, category, status FROM parts WHERE shop_id = ? AND rowid > ? ORDER BY rowid LIMIT ?`,
+        [shopId, after, slice],
+      );
+      for (const row of page) parts.push(row);
+      if (page.length < slice) break;
+      after = page[page.length - 1]!.rowid;
+      await breathe();
+    }
     const supplier = await db.query<Array<{ partId: string; number: string; key: string }>>(
       `SELECT part_id AS partId, number, key FROM part_supplier_numbers WHERE shop_id = ? ORDER BY part_id, key`,
       [shopId],
@@ -359,7 +444,7 @@ export function memoryPartSearchIndex(options: MemoryPartSearchIndexOptions): Me
        WHERE shop_id = ? AND kind = 'equivalent' AND to_part_id IS NULL ORDER BY from_part_id, to_key`,
       [shopId],
     );
-    return { readAt, index: buildShopIndex(parts, supplier, equivalents) };
+    return { readAt, index: await buildShopIndex(parts, supplier, equivalents, slice) };
   }
 
   /**
@@ -504,8 +589,10 @@ export function memoryPartSearchIndex(options: MemoryPartSearchIndexOptions): Me
         }
         const head = pattern.slice(0, gap);
         const tail = pattern.slice(gap + 1);
+        const spacedHead = ` ${head}`;
+        const spacedTail = `${tail} `;
         const check = (doc: number) => {
-          if (!near.has(doc) && likeGap(index.keysText[doc]!, head, tail)) take(doc);
+          if (!near.has(doc) && likeGap(index.keysText[doc]!, spacedHead, spacedTail)) take(doc);
         };
         // A match needs a key starting with `head` and one ending with `tail`: scan the longer side.
         if (head.length >= tail.length) withPrefix(index.foldedKeys, head, check);

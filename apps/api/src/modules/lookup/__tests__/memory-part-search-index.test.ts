@@ -8,7 +8,7 @@ import { FitmentEntity, PartEntity, PartLinkEntity, PartSupplierNumberEntity } f
 import { createCatalogueService } from '../../catalogue/catalogue.service';
 import type { Agent } from '../../catalogue/__tests__/helpers';
 import { createLookupService } from '../lookup.service';
-import { memoryPartSearchIndex } from '../memory-part-search-index';
+import { memoryPartSearchIndex, sortYielding } from '../memory-part-search-index';
 import { sqlitePartSearchIndex } from '../part-search-index';
 
 let ctx: TestContext;
@@ -121,7 +121,8 @@ describe('the in-memory index finds what the SQLite FTS index finds', () => {
         await replaceCatalogue(otherShopId, toRows(otherShopId, shared, theirs.links));
         const catalogue = createCatalogueService({ db: ctx.db, clock: ctx.clock });
         const sqlite = createLookupService({ index: sqlitePartSearchIndex(() => ctx.db.reader), graphOf: catalogue.graphOf });
-        const memory = createLookupService({ index: memoryPartSearchIndex({ reader: () => ctx.db.reader, versionOf: catalogue.graphOf }), graphOf: catalogue.graphOf });
+        // A tiny slice: the build reads and indexes the catalogue in many pieces, pausing between them.
+        const memory = createLookupService({ index: memoryPartSearchIndex({ reader: () => ctx.db.reader, versionOf: catalogue.graphOf, slice: 3 }), graphOf: catalogue.graphOf });
         const mineIds = new Set<string>(rows.partRows.map((p) => p.id));
         for (const query of queries) {
           const part = mine.parts[query.from % mine.parts.length]!;
@@ -191,6 +192,16 @@ describe('the in-memory index follows the catalogue', () => {
 });
 
 describe('the cache', () => {
+  it('concurrent callers share one lineage graph (the version token), rebuilt after a change', async () => {
+    const catalogue = createCatalogueService({ db: ctx.db, clock: ctx.clock });
+    const [a, b] = await Promise.all([catalogue.graphOf(otherShopId), catalogue.graphOf(otherShopId)]);
+    expect(a).toBe(b);
+    catalogue.changed(otherShopId);
+    const c = await catalogue.graphOf(otherShopId);
+    expect(c).not.toBe(a);
+    expect(await catalogue.graphOf(otherShopId)).toBe(c);
+  });
+
   it('builds once per catalogue version, and concurrent lookups share one build', async () => {
     let version = 1;
     const index = memoryPartSearchIndex({ reader: () => ctx.db.reader, versionOf: () => version });
@@ -214,5 +225,16 @@ describe('the cache', () => {
     // A lookup that arrives after that build with a token never seen before must not trust it.
     await index.byKey(otherShopId, 'X1');
     expect(index.builds()).toBe(2);
+  });
+});
+
+describe('sorting while letting other work run', () => {
+  it('puts distinct strings in the order Array.prototype.sort gives, across many runs and merges', async () => {
+    await fc.assert(
+      fc.asyncProperty(fc.uniqueArray(fc.string({ unit: fc.constantFrom('A', 'B', '0', '9', 'é', ' '), maxLength: 6 }), { maxLength: 200 }), fc.integer({ min: 1, max: 8 }), async (keys, slice) => {
+        expect(await sortYielding([...keys], slice)).toEqual([...keys].sort());
+      }),
+      { numRuns: 300 },
+    );
   });
 });
