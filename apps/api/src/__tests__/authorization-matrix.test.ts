@@ -9,6 +9,7 @@ import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from
 import { defineAbilityFor, subjectOf, type Action, type AppAbility, type SubjectName } from '@tappet/permissions';
 import type { ShopRole } from '@tappet/contracts';
 import { mountedApiRoutes } from '../test-support/mounted-routes';
+import { mailSendingRoutes, mailSendingWhenAsked } from '../app';
 import { createTestContext, csrf, seedShop, signedInAgent, type TestContext } from '../test-support/test-app';
 import { createShopWithUsers } from '../modules/test-support/test-support.service';
 import { seedCatalogueFixture, type CatalogueFixture } from '../modules/catalogue/catalogue.test-fixture';
@@ -793,8 +794,18 @@ const auditSamples: Record<string, Entry['call']> = {
     a.post(`/api/shops/${w.shopId}/imports`).set(csrf).field('kind', 'parts').field('mode', 'commit').attach('file', Buffer.from(`number,description\r\nMX-${randomUUID().slice(0, 8)},Matrix\r\n`), 'parts.csv'),
 };
 
+/** Routes that send e-mail under an allowance of their own service instead of the shared one (app.ts). */
+const mailLimitedByTheirService: Record<string, string> = {
+  'POST /api/shops/:shopId/staff/invitations': 'invitations per shop and hour (staff.test.ts › is rate-limited per shop)',
+  'POST /api/shops/:shopId/staff/invitations/:invitationId/resend': 'the same invitation allowance as a new invitation',
+  'POST /api/auth/password-reset/request': 'per account and per address (password-reset.test.ts)',
+};
+/** Write routes whose successful sample put a message in the outbox. */
+const sentMail = new Set<string>();
+
 // Every write records who did what (issue 3). Calls each write route's matrix sample as the first
-// persona allowed to make it and checks that at least one audit event was appended.
+// persona allowed to make it and checks that at least one audit event was appended. It also notes
+// which of them sent e-mail: each of those must be under an e-mail allowance (issue 13).
 describe('audit coverage', () => {
   const isWrite = (route: string) => !route.startsWith('GET ') && !route.startsWith('HEAD ');
   const order: Persona[] = ['owner', 'buyer', 'mechanic', 'viewer', 'platformAdmin', 'outsider', 'anonymous'];
@@ -810,11 +821,22 @@ describe('audit coverage', () => {
       if (!persona) throw new Error(`No persona may call ${route}: give it a sample call that succeeds, or list it in \`unaudited\` with a reason.`);
       const agent = persona === 'anonymous' ? request(ctx.app) : await signedInAgent(ctx.app, world.people[persona].email, world.people[persona].password);
       const before = await ctx.db.reader.count(AuditEventEntity);
+      const mailBefore = ctx.mailer.outbox.length;
       const res = await (auditSamples[route] ?? entry.call)(agent, world);
       expect(res.status, JSON.stringify(res.body)).toBeLessThan(300);
       expect(await ctx.db.reader.count(AuditEventEntity), `${route} wrote no audit event`).toBeGreaterThan(before);
+      // Mail not awaited by the route is handed to the mailer before it answers; let it land.
+      await new Promise((r) => setImmediate(r));
+      if (ctx.mailer.outbox.length > mailBefore) sentMail.add(route);
     });
   }
+
+  it('finds every route that sent e-mail under an e-mail allowance', () => {
+    const limited = new Set([...mailSendingRoutes, ...Object.keys(mailSendingWhenAsked)].map((r) => `POST /api${r}`).concat(Object.keys(mailLimitedByTheirService)));
+    // The check above saw mail at all (a mailer that stopped recording would prove nothing).
+    expect([...sentMail]).toEqual(expect.arrayContaining(['POST /api/shops/:shopId/purchasing/orders/:orderId/send', 'POST /api/shops/:shopId/staff/invitations']));
+    expect([...sentMail].filter((r) => !limited.has(r))).toEqual([]);
+  });
 });
 
 // Two more personas (issue 11): a platform admin while the shop's owner grants support access, and
