@@ -75,6 +75,22 @@ describe('bodies that are not what a form sends', () => {
   });
 });
 
+describe('page sizes', () => {
+  it.each([
+    ['/parts', 100],
+    ['/audit-events', 100],
+    ['/customers', 100],
+    ['/vehicles', 100],
+    ['/sales/invoices', 100],
+    ['/stock', 200],
+    ['/stock/movements', 200],
+  ])('%s takes pages of up to %i rows and refuses a larger page with a clear 400', async (list, cap) => {
+    const at = await agent.get(`/api/shops/${shopId}${list}`).query({ pageSize: cap });
+    expect(at.status, JSON.stringify(at.body)).toBe(200);
+    for (const pageSize of [cap + 1, 1e9, -1, 'all']) expectRefusedCleanly(await agent.get(`/api/shops/${shopId}${list}`).query({ pageSize }));
+  });
+});
+
 describe('Unicode tricks in text fields', () => {
   it.each([
     ['a right-to-left override', '71-34\u202E65'],
