@@ -29,13 +29,16 @@ import { seedSalesMatrixFixture, type SalesMatrixFixture } from '../modules/sale
 import { seedEstimatesFixture, type EstimatesFixture } from '../modules/estimates/estimates.test-fixture';
 import { seedConsignmentFixture, type ConsignmentFixture } from '../modules/consignment/consignment.test-fixture';
 
-type Persona = 'anonymous' | ShopRole | 'outsider' | 'platformAdmin';
-const personas: Persona[] = ['anonymous', 'owner', 'mechanic', 'buyer', 'viewer', 'outsider', 'platformAdmin'];
+type Persona = 'anonymous' | ShopRole | 'outsider' | 'platformAdmin' | 'apiKey';
+/** `apiKey`: a key of the shop with the highest role a key may carry (buyer), sent as a Bearer token. */
+const personas: Persona[] = ['anonymous', 'owner', 'mechanic', 'buyer', 'viewer', 'outsider', 'platformAdmin', 'apiKey'];
 
 interface World {
   shopId: string;
   /** Sign-in of each persona. */
-  people: Record<Exclude<Persona, 'anonymous'>, { email: string; password: string }>;
+  people: Record<Exclude<Persona, 'anonymous' | 'apiKey'>, { email: string; password: string }>;
+  /** The secret of the shop's buyer API key. */
+  apiKeySecret: string;
   catalogue: CatalogueFixture;
   admin: ShopAdminFixture;
   purchasing: PurchasingFixture;
@@ -671,9 +674,16 @@ const matrix: Record<string, Entry> = {
   },
 };
 
-function expectedStatus(access: Access, persona: Persona, world: World): number {
+function expectedStatus(access: Access, persona: Persona, world: World, route: string): number {
   if (access.kind === 'public') return access.status;
   if (persona === 'anonymous') return 401;
+  if (persona === 'apiKey') {
+    // A key is no person: personal and platform routes refuse it; in its own shop it has its role, minus administration.
+    if (access.kind === 'platform' || access.kind === 'signed-in') return 401;
+    if (access.kind === 'member') return / \/api\/shops\/:shopId(\/|$)/.test(route) ? access.status : 401;
+    const ability = defineAbilityFor({ userId: 'u', isPlatformAdmin: false, apiKeyId: 'k' }, { shopId: world.shopId, role: 'buyer', spendingLimitMinor: null });
+    return ability.can(access.action, subjectOf(access.subject, { shopId: world.shopId }), access.field) ? access.status : 403;
+  }
   if (access.kind === 'platform') return persona === 'platformAdmin' ? access.status : 403;
   if (access.kind === 'signed-in') return access.status;
   const role = persona === 'outsider' || persona === 'platformAdmin' ? null : persona;
@@ -707,6 +717,7 @@ beforeAll(async () => {
     estimates: null as unknown as EstimatesFixture,
     consignment: null as unknown as ConsignmentFixture,
     sales: null as unknown as SalesMatrixFixture,
+    apiKeySecret: '',
     mechanicId: shop.byRole.mechanic.id,
     vehicles: await seedVehicleFixture(ctx.db, shop.shop.id, ctx.env.uploadsDir),
     stock: await seedStockFixture(ctx.db, shop.shop.id),
@@ -720,6 +731,11 @@ beforeAll(async () => {
       platformAdmin: { email: admin.users[0]!.email, password: admin.password },
     },
   };
+  {
+    const owner = await signedInAgent(ctx.app, shop.byRole.owner.email, shop.password);
+    const key = await owner.post(`/api/shops/${shop.shop.id}/api-keys`).set(csrf).send({ label: 'Matrix key', role: 'buyer' }).expect(201);
+    world.apiKeySecret = key.body.secret as string;
+  }
   world.labelBinId = await seedLabelBin(ctx.db, shop.shop.id, 'MX-BIN', [{ partId: world.catalogue.partId, onHand: 3 }]);
   world.jobs = await seedJobsFixture(ctx.db, shop.shop.id, ctx.env.uploadsDir, { vehicleId: world.vehicles.vehicleId, partId: world.stock.partId, binId: world.stock.binId, userId: world.mechanicId });
   // Stock counts and receipt labels (issue 7): the count covers the label bin (3 of the catalogue part).
@@ -754,13 +770,19 @@ afterEach(async () => {
   if (!keepGrants) await world.platform.revokeAllGrants();
 });
 
+/** A request maker for a persona: signed in, holding the API key, or neither. */
+async function agentOf(persona: Persona) {
+  if (persona === 'anonymous') return request(ctx.app);
+  if (persona === 'apiKey') return request.agent(ctx.app).set('Authorization', `Bearer ${world.apiKeySecret}`);
+  return signedInAgent(ctx.app, world.people[persona].email, world.people[persona].password);
+}
+
 describe('authorisation matrix', () => {
   for (const [route, entry] of Object.entries(matrix)) {
     for (const persona of personas) {
       it(`${route} as ${persona}`, async () => {
-        const agent = persona === 'anonymous' ? request(ctx.app) : await signedInAgent(ctx.app, world.people[persona].email, world.people[persona].password);
-        const res = await entry.call(agent, world);
-        expect(res.status, JSON.stringify(res.body)).toBe(expectedStatus(entry.access, persona, world));
+        const res = await entry.call(await agentOf(persona), world);
+        expect(res.status, JSON.stringify(res.body)).toBe(expectedStatus(entry.access, persona, world, route));
       });
     }
   }
@@ -817,9 +839,9 @@ describe('audit coverage', () => {
 
   for (const [route, entry] of Object.entries(matrix).filter(([r]) => isWrite(r) && !(r in unaudited))) {
     it(`${route} records an audit event`, async () => {
-      const persona = order.find((p) => expectedStatus(entry.access, p, world) < 300);
+      const persona = order.find((p) => expectedStatus(entry.access, p, world, route) < 300);
       if (!persona) throw new Error(`No persona may call ${route}: give it a sample call that succeeds, or list it in \`unaudited\` with a reason.`);
-      const agent = persona === 'anonymous' ? request(ctx.app) : await signedInAgent(ctx.app, world.people[persona].email, world.people[persona].password);
+      const agent = await agentOf(persona);
       const before = await ctx.db.reader.count(AuditEventEntity);
       const mailBefore = ctx.mailer.outbox.length;
       const res = await (auditSamples[route] ?? entry.call)(agent, world);
