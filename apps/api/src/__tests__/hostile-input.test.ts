@@ -6,8 +6,8 @@ import type { Database } from '../db/write-lock';
 import { createTestContext, csrf, seedShop, signedInAgent, type TestContext } from '../test-support/test-app';
 
 // Hostile input (issue 13): malformed, oversized, deep, wrongly typed and Unicode-tricked input to
-// the search, resolve, import and form endpoints. Expected every time: a clear 4xx in the error
-// shape (or a normal answer), never a 5xx, and never a partial write.
+// the search, resolve, import, upload and form endpoints. Expected every time: a clear 4xx in the
+// error shape (or a normal answer), never a 5xx, and never a partial write.
 
 let ctx: TestContext;
 let agent: ReturnType<typeof request.agent>;
@@ -150,6 +150,34 @@ describe('generated input (fast-check)', () => {
         expect(await tableCounts(ctx.db)).toEqual(before);
       }),
       { numRuns: 100 },
+    );
+  });
+
+  it('any bytes under any name, uploaded as a vehicle file, are stored whole or refused cleanly, never half', async () => {
+    const vehicle = await agent.post(`/api/shops/${shopId}/vehicles`).set(csrf).send({ kind: 'customer', marque: 'Fuzzwell', model: 'Upload' }).expect(201);
+    const url = `/api/shops/${shopId}/vehicles/${vehicle.body.id as string}/files`;
+    const bytes = fc.oneof(
+      fc.uint8Array({ minLength: 1, maxLength: 3000 }).map((a) => Buffer.from(a)),
+      // Real magic numbers followed by junk: sniffed as an image or a PDF, then unreadable.
+      fc.tuple(fc.constantFrom('ffd8ffe0', '89504e470d0a1a0a', '52494646000000005745425056503820', '255044462d312e'), fc.uint8Array({ maxLength: 2000 })).map(([magic, rest]) => Buffer.concat([Buffer.from(magic, 'hex'), Buffer.from(rest)])),
+    );
+    const name = fc.oneof(fc.constantFrom('../../etc/passwd', '..\\..\\boot.ini', 'a\u0000b.jpg', '\u202Egpj.exe', 'CON', '.htaccess', ' '), fc.string({ unit: 'grapheme', minLength: 1, maxLength: 80 }));
+    await fc.assert(
+      fc.asyncProperty(bytes, name, async (file, fileName) => {
+        const before = await tableCounts(ctx.db);
+        const res = await agent.post(url).set(csrf).attach('files', file, fileName);
+        if (res.status === 201) {
+          expect(res.body.files).toHaveLength(1);
+          // The name kept for showing is a last path segment without NUL (the stored key is the server's own).
+          const shown = res.body.files[0].originalName as string;
+          expect(shown).not.toMatch(/[\\/]/);
+          expect(shown.includes('\u0000')).toBe(false);
+          return;
+        }
+        expectRefusedCleanly(res);
+        expect(await tableCounts(ctx.db)).toEqual(before);
+      }),
+      { numRuns: 40 },
     );
   });
 
