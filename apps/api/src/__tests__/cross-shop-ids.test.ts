@@ -3,12 +3,11 @@
 // answer is 404 and no table changes (every row of every table compared before and after). The
 // same request with shop A's own id then succeeds, so each 404 is the foreign id's doing, not a
 // mistyped route or a malformed body. (Ids in the URL: the authorisation matrix's outsider.)
-import { createHash } from 'node:crypto';
 import type { Test } from 'supertest';
 import type TestAgent from 'supertest/lib/agent';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Database } from '../db/write-lock';
 import { createTestContext, csrf, seedShop, signedInAgent, type TestContext } from '../test-support/test-app';
+import { databaseDigest } from '../test-support/database-digest';
 import { seedCatalogueFixture } from '../modules/catalogue/catalogue.test-fixture';
 import { seedStockFixture } from '../modules/stock/stock.test-fixture';
 import { seedPurchasingFixture } from '../modules/purchasing/purchasing.test-fixture';
@@ -85,18 +84,6 @@ beforeAll(async () => {
   owner = await signedInAgent(ctx.app, a.ownerEmail, a.password);
 });
 afterAll(() => ctx.close());
-
-/** A digest of every row of every table. Sessions are left out: each request moves its idle clock. */
-async function databaseDigest(db: Database): Promise<Record<string, string>> {
-  const tables = (await db.reader.query(`SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE 'part_search_%' AND name <> 'sessions' ORDER BY name`)) as Array<{ name: string }>;
-  const out: Record<string, string> = {};
-  for (const { name } of tables) {
-    const rows = (await db.reader.query(`SELECT * FROM "${name}"`)) as unknown[];
-    const lines = rows.map((r) => JSON.stringify(r)).sort();
-    out[name] = `${rows.length} rows, ${createHash('sha256').update(lines.join('\n')).digest('hex').slice(0, 16)}`;
-  }
-  return out;
-}
 
 type Call = (a: TestAgent<Test>, ids: Ids) => Test;
 const shop = (ids: Ids, rest: string) => `/api/shops/${ids.shopId}${rest}`;
