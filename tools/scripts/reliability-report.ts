@@ -33,7 +33,7 @@ export const reliabilitySuites: Suite[] = [
 
 /** The security suites, with what each one tries (docs/security.md names the control each proves). */
 export const securitySuites: Suite[] = [
-  { file: 'apps/api/src/__tests__/authorization-matrix.test.ts', tries: 'every API route × signed out, each role, another shop’s owner, a platform admin with and without support access, an API key, a suspended shop; an audit entry and an e-mail allowance for every write route' },
+  { file: 'apps/api/src/__tests__/authorization-matrix.test.ts', tries: 'every API route × signed out, each role, another shop’s owner (whose writes change no row), a platform admin with and without support access, an API key, a suspended shop; an audit entry and an e-mail allowance for every write route' },
   { file: 'apps/api/src/__tests__/cross-shop-ids.test.ts', tries: 'another shop’s ids inside the bodies of 21 writes, every table compared before and after' },
   { file: 'apps/api/src/__tests__/hostile-input.test.ts', tries: 'malformed, deep, oversized, wrongly typed and Unicode-tricked input; page sizes; path tricks in file names; generated input (fast-check)' },
   { file: 'apps/api/src/modules/uploads/__tests__/uploads.test.ts', tries: 'scripts named .jpg, HTML and SVG, a decompression bomb, oversized and too many files, path tricks in names, failures part-way' },
