@@ -112,7 +112,18 @@ export const mailSendingRoutes = [
   '/platform/shops',
   '/shops/:shopId/sales/invoices/:invoiceId/email',
   '/shops/:shopId/estimates/:estimateId/send',
+  '/shops/:shopId/sales/invoices/:invoiceId/credit-notes',
 ];
+
+/**
+ * Routes that send e-mail only when the request asks for it (an invoice issued with its e-mail, a
+ * counter sale issued to a customer): counted in the same allowance only then, so a busy counter
+ * is not held up by sales that e-mail nobody.
+ */
+export const mailSendingWhenAsked: Record<string, (body: Record<string, unknown>) => boolean> = {
+  '/shops/:shopId/sales/invoices/:invoiceId/issue': (body) => body['sendEmail'] !== false,
+  '/shops/:shopId/sales/counter-sales': (body) => body['issue'] !== false && Boolean(body['customerId'] || body['customerEmail']),
+};
 
 /** Builds the Express app (no listen): API, security headers, logs, the web app and fonts. */
 export function createApp(deps: AppDeps): Express {
@@ -215,7 +226,16 @@ export function createApp(deps: AppDeps): Express {
   });
   api.use(authenticate(env, auth, apiKeys));
   // Routes that send e-mail on the caller's behalf share one allowance per person and shop.
-  api.post(mailSendingRoutes, mailRequestLimit({ clock, store: rateLimitStore, rule: deps.mailRequestLimit }));
+  const mailLimit = mailRequestLimit({ clock, store: rateLimitStore, rule: deps.mailRequestLimit });
+  api.post(mailSendingRoutes, mailLimit);
+  for (const [route, asksForMail] of Object.entries(mailSendingWhenAsked)) {
+    api.post(route, (req, res, next) => {
+      const body = typeof req.body === 'object' && req.body !== null ? (req.body as Record<string, unknown>) : {};
+      // Returned, so that Express sees a failed counter (the store is the database).
+      if (asksForMail(body)) return mailLimit(req, res, next);
+      next();
+    });
+  }
   api.use('/auth', authRouter({ env, auth }));
   // The customer's pay link from an invoice e-mail (no account; sales, issue 12).
   api.use('/pay', payLinkRouter({ sales, clock, store: rateLimitStore }));

@@ -9,6 +9,8 @@ import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from
 import { defineAbilityFor, subjectOf, type Action, type AppAbility, type SubjectName } from '@tappet/permissions';
 import type { ShopRole } from '@tappet/contracts';
 import { mountedApiRoutes } from '../test-support/mounted-routes';
+import { databaseDigest } from '../test-support/database-digest';
+import { mailSendingRoutes, mailSendingWhenAsked } from '../app';
 import { createTestContext, csrf, seedShop, signedInAgent, type TestContext } from '../test-support/test-app';
 import { createShopWithUsers } from '../modules/test-support/test-support.service';
 import { seedCatalogueFixture, type CatalogueFixture } from '../modules/catalogue/catalogue.test-fixture';
@@ -28,13 +30,16 @@ import { seedSalesMatrixFixture, type SalesMatrixFixture } from '../modules/sale
 import { seedEstimatesFixture, type EstimatesFixture } from '../modules/estimates/estimates.test-fixture';
 import { seedConsignmentFixture, type ConsignmentFixture } from '../modules/consignment/consignment.test-fixture';
 
-type Persona = 'anonymous' | ShopRole | 'outsider' | 'platformAdmin';
-const personas: Persona[] = ['anonymous', 'owner', 'mechanic', 'buyer', 'viewer', 'outsider', 'platformAdmin'];
+type Persona = 'anonymous' | ShopRole | 'outsider' | 'platformAdmin' | 'apiKey';
+/** `apiKey`: a key of the shop with the highest role a key may carry (buyer), sent as a Bearer token. */
+const personas: Persona[] = ['anonymous', 'owner', 'mechanic', 'buyer', 'viewer', 'outsider', 'platformAdmin', 'apiKey'];
 
 interface World {
   shopId: string;
   /** Sign-in of each persona. */
-  people: Record<Exclude<Persona, 'anonymous'>, { email: string; password: string }>;
+  people: Record<Exclude<Persona, 'anonymous' | 'apiKey'>, { email: string; password: string }>;
+  /** The secret of the shop's buyer API key. */
+  apiKeySecret: string;
   catalogue: CatalogueFixture;
   admin: ShopAdminFixture;
   purchasing: PurchasingFixture;
@@ -670,9 +675,16 @@ const matrix: Record<string, Entry> = {
   },
 };
 
-function expectedStatus(access: Access, persona: Persona, world: World): number {
+function expectedStatus(access: Access, persona: Persona, world: World, route: string): number {
   if (access.kind === 'public') return access.status;
   if (persona === 'anonymous') return 401;
+  if (persona === 'apiKey') {
+    // A key is no person: personal and platform routes refuse it; in its own shop it has its role, minus administration.
+    if (access.kind === 'platform' || access.kind === 'signed-in') return 401;
+    if (access.kind === 'member') return / \/api\/shops\/:shopId(\/|$)/.test(route) ? access.status : 401;
+    const ability = defineAbilityFor({ userId: 'u', isPlatformAdmin: false, apiKeyId: 'k' }, { shopId: world.shopId, role: 'buyer', spendingLimitMinor: null });
+    return ability.can(access.action, subjectOf(access.subject, { shopId: world.shopId }), access.field) ? access.status : 403;
+  }
   if (access.kind === 'platform') return persona === 'platformAdmin' ? access.status : 403;
   if (access.kind === 'signed-in') return access.status;
   const role = persona === 'outsider' || persona === 'platformAdmin' ? null : persona;
@@ -706,6 +718,7 @@ beforeAll(async () => {
     estimates: null as unknown as EstimatesFixture,
     consignment: null as unknown as ConsignmentFixture,
     sales: null as unknown as SalesMatrixFixture,
+    apiKeySecret: '',
     mechanicId: shop.byRole.mechanic.id,
     vehicles: await seedVehicleFixture(ctx.db, shop.shop.id, ctx.env.uploadsDir),
     stock: await seedStockFixture(ctx.db, shop.shop.id),
@@ -719,6 +732,11 @@ beforeAll(async () => {
       platformAdmin: { email: admin.users[0]!.email, password: admin.password },
     },
   };
+  {
+    const owner = await signedInAgent(ctx.app, shop.byRole.owner.email, shop.password);
+    const key = await owner.post(`/api/shops/${shop.shop.id}/api-keys`).set(csrf).send({ label: 'Matrix key', role: 'buyer' }).expect(201);
+    world.apiKeySecret = key.body.secret as string;
+  }
   world.labelBinId = await seedLabelBin(ctx.db, shop.shop.id, 'MX-BIN', [{ partId: world.catalogue.partId, onHand: 3 }]);
   world.jobs = await seedJobsFixture(ctx.db, shop.shop.id, ctx.env.uploadsDir, { vehicleId: world.vehicles.vehicleId, partId: world.stock.partId, binId: world.stock.binId, userId: world.mechanicId });
   // Stock counts and receipt labels (issue 7): the count covers the label bin (3 of the catalogue part).
@@ -753,13 +771,25 @@ afterEach(async () => {
   if (!keepGrants) await world.platform.revokeAllGrants();
 });
 
+/** A request maker for a persona: signed in, holding the API key, or neither. */
+async function agentOf(persona: Persona) {
+  if (persona === 'anonymous') return request(ctx.app);
+  if (persona === 'apiKey') return request.agent(ctx.app).set('Authorization', `Bearer ${world.apiKeySecret}`);
+  return signedInAgent(ctx.app, world.people[persona].email, world.people[persona].password);
+}
+
 describe('authorisation matrix', () => {
   for (const [route, entry] of Object.entries(matrix)) {
     for (const persona of personas) {
-      it(`${route} as ${persona}`, async () => {
-        const agent = persona === 'anonymous' ? request(ctx.app) : await signedInAgent(ctx.app, world.people[persona].email, world.people[persona].password);
+      // Another shop's owner naming this shop in the URL: a 404 that changes nothing, row by row.
+      const checkUnchanged = persona === 'outsider' && !route.startsWith('GET ') && expectedStatus(entry.access, persona, world, route) === 404;
+      it(`${route} as ${persona}${checkUnchanged ? ', changing nothing' : ''}`, async () => {
+        // Signed in first: a sign-in is itself audited.
+        const agent = await agentOf(persona);
+        const before = checkUnchanged ? await databaseDigest(ctx.db) : null;
         const res = await entry.call(agent, world);
-        expect(res.status, JSON.stringify(res.body)).toBe(expectedStatus(entry.access, persona, world));
+        expect(res.status, JSON.stringify(res.body)).toBe(expectedStatus(entry.access, persona, world, route));
+        if (before) expect(await databaseDigest(ctx.db)).toEqual(before);
       });
     }
   }
@@ -793,8 +823,18 @@ const auditSamples: Record<string, Entry['call']> = {
     a.post(`/api/shops/${w.shopId}/imports`).set(csrf).field('kind', 'parts').field('mode', 'commit').attach('file', Buffer.from(`number,description\r\nMX-${randomUUID().slice(0, 8)},Matrix\r\n`), 'parts.csv'),
 };
 
+/** Routes that send e-mail under an allowance of their own service instead of the shared one (app.ts). */
+const mailLimitedByTheirService: Record<string, string> = {
+  'POST /api/shops/:shopId/staff/invitations': 'invitations per shop and hour (staff.test.ts › is rate-limited per shop)',
+  'POST /api/shops/:shopId/staff/invitations/:invitationId/resend': 'the same invitation allowance as a new invitation',
+  'POST /api/auth/password-reset/request': 'per account and per address (password-reset.test.ts)',
+};
+/** Write routes whose successful sample put a message in the outbox. */
+const sentMail = new Set<string>();
+
 // Every write records who did what (issue 3). Calls each write route's matrix sample as the first
-// persona allowed to make it and checks that at least one audit event was appended.
+// persona allowed to make it and checks that at least one audit event was appended. It also notes
+// which of them sent e-mail: each of those must be under an e-mail allowance (issue 13).
 describe('audit coverage', () => {
   const isWrite = (route: string) => !route.startsWith('GET ') && !route.startsWith('HEAD ');
   const order: Persona[] = ['owner', 'buyer', 'mechanic', 'viewer', 'platformAdmin', 'outsider', 'anonymous'];
@@ -806,15 +846,26 @@ describe('audit coverage', () => {
 
   for (const [route, entry] of Object.entries(matrix).filter(([r]) => isWrite(r) && !(r in unaudited))) {
     it(`${route} records an audit event`, async () => {
-      const persona = order.find((p) => expectedStatus(entry.access, p, world) < 300);
+      const persona = order.find((p) => expectedStatus(entry.access, p, world, route) < 300);
       if (!persona) throw new Error(`No persona may call ${route}: give it a sample call that succeeds, or list it in \`unaudited\` with a reason.`);
-      const agent = persona === 'anonymous' ? request(ctx.app) : await signedInAgent(ctx.app, world.people[persona].email, world.people[persona].password);
+      const agent = await agentOf(persona);
       const before = await ctx.db.reader.count(AuditEventEntity);
+      const mailBefore = ctx.mailer.outbox.length;
       const res = await (auditSamples[route] ?? entry.call)(agent, world);
       expect(res.status, JSON.stringify(res.body)).toBeLessThan(300);
       expect(await ctx.db.reader.count(AuditEventEntity), `${route} wrote no audit event`).toBeGreaterThan(before);
+      // Mail not awaited by the route is handed to the mailer before it answers; let it land.
+      await new Promise((r) => setImmediate(r));
+      if (ctx.mailer.outbox.length > mailBefore) sentMail.add(route);
     });
   }
+
+  it('finds every route that sent e-mail under an e-mail allowance', () => {
+    const limited = new Set([...mailSendingRoutes, ...Object.keys(mailSendingWhenAsked)].map((r) => `POST /api${r}`).concat(Object.keys(mailLimitedByTheirService)));
+    // The check above saw mail at all (a mailer that stopped recording would prove nothing).
+    expect([...sentMail]).toEqual(expect.arrayContaining(['POST /api/shops/:shopId/purchasing/orders/:orderId/send', 'POST /api/shops/:shopId/staff/invitations']));
+    expect([...sentMail].filter((r) => !limited.has(r))).toEqual([]);
+  });
 });
 
 // Two more personas (issue 11): a platform admin while the shop's owner grants support access, and

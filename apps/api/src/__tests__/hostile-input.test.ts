@@ -6,8 +6,8 @@ import type { Database } from '../db/write-lock';
 import { createTestContext, csrf, seedShop, signedInAgent, type TestContext } from '../test-support/test-app';
 
 // Hostile input (issue 13): malformed, oversized, deep, wrongly typed and Unicode-tricked input to
-// the search, resolve, import and form endpoints. Expected every time: a clear 4xx in the error
-// shape (or a normal answer), never a 5xx, and never a partial write.
+// the search, resolve, import, upload and form endpoints. Expected every time: a clear 4xx in the
+// error shape (or a normal answer), never a 5xx, and never a partial write.
 
 let ctx: TestContext;
 let agent: ReturnType<typeof request.agent>;
@@ -75,6 +75,22 @@ describe('bodies that are not what a form sends', () => {
   });
 });
 
+describe('page sizes', () => {
+  it.each([
+    ['/parts', 100],
+    ['/audit-events', 100],
+    ['/customers', 100],
+    ['/vehicles', 100],
+    ['/sales/invoices', 100],
+    ['/stock', 200],
+    ['/stock/movements', 200],
+  ])('%s takes pages of up to %i rows and refuses a larger page with a clear 400', async (list, cap) => {
+    const at = await agent.get(`/api/shops/${shopId}${list}`).query({ pageSize: cap });
+    expect(at.status, JSON.stringify(at.body)).toBe(200);
+    for (const pageSize of [cap + 1, 1e9, -1, 'all']) expectRefusedCleanly(await agent.get(`/api/shops/${shopId}${list}`).query({ pageSize }));
+  });
+});
+
 describe('Unicode tricks in text fields', () => {
   it.each([
     ['a right-to-left override', '71-34\u202E65'],
@@ -134,6 +150,34 @@ describe('generated input (fast-check)', () => {
         expect(await tableCounts(ctx.db)).toEqual(before);
       }),
       { numRuns: 100 },
+    );
+  });
+
+  it('any bytes under any name, uploaded as a vehicle file, are stored whole or refused cleanly, never half', async () => {
+    const vehicle = await agent.post(`/api/shops/${shopId}/vehicles`).set(csrf).send({ kind: 'customer', marque: 'Fuzzwell', model: 'Upload' }).expect(201);
+    const url = `/api/shops/${shopId}/vehicles/${vehicle.body.id as string}/files`;
+    const bytes = fc.oneof(
+      fc.uint8Array({ minLength: 1, maxLength: 3000 }).map((a) => Buffer.from(a)),
+      // Real magic numbers followed by junk: sniffed as an image or a PDF, then unreadable.
+      fc.tuple(fc.constantFrom('ffd8ffe0', '89504e470d0a1a0a', '52494646000000005745425056503820', '255044462d312e'), fc.uint8Array({ maxLength: 2000 })).map(([magic, rest]) => Buffer.concat([Buffer.from(magic, 'hex'), Buffer.from(rest)])),
+    );
+    const name = fc.oneof(fc.constantFrom('../../etc/passwd', '..\\..\\boot.ini', 'a\u0000b.jpg', '\u202Egpj.exe', 'CON', '.htaccess', ' '), fc.string({ unit: 'grapheme', minLength: 1, maxLength: 80 }));
+    await fc.assert(
+      fc.asyncProperty(bytes, name, async (file, fileName) => {
+        const before = await tableCounts(ctx.db);
+        const res = await agent.post(url).set(csrf).attach('files', file, fileName);
+        if (res.status === 201) {
+          expect(res.body.files).toHaveLength(1);
+          // The name kept for showing is a last path segment without NUL (the stored key is the server's own).
+          const shown = res.body.files[0].originalName as string;
+          expect(shown).not.toMatch(/[\\/]/);
+          expect(shown.includes('\u0000')).toBe(false);
+          return;
+        }
+        expectRefusedCleanly(res);
+        expect(await tableCounts(ctx.db)).toEqual(before);
+      }),
+      { numRuns: 40 },
     );
   });
 

@@ -8,6 +8,11 @@ import { createDataSource, sqliteHandle } from '../data-source';
 import { localFileStore } from '../../modules/uploads/file-store';
 import { BackupError, pidFileName, restoreBackup, runningInstance, takeBackup, type BackupManifest } from '../backup';
 import { ShopEntity } from '../../modules/shops/shops.entity';
+import { PartEntity } from '../../modules/catalogue/catalogue.entity';
+import { createShopWithUsers } from '../../modules/test-support/test-support.service';
+import { createBin, issueStock, receiveStock } from '../../modules/stock/stock.service';
+import { checkLedger } from '../../modules/stock/stock.ledger-check';
+import { systemClock } from '../../lib/clock';
 import { openTestDatabase } from '../../test-support/test-app';
 
 let database: Awaited<ReturnType<typeof openTestDatabase>>;
@@ -36,6 +41,35 @@ async function shopIdsIn(file: string): Promise<Set<string>> {
   }
 }
 
+/** The ids of stock movements in a restored database file, after its integrity and ledger checks. */
+async function movementIdsIn(file: string): Promise<Set<string>> {
+  const ds = createDataSource(file);
+  await ds.initialize();
+  try {
+    expect(sqliteHandle(ds).pragma('integrity_check', { simple: true })).toBe('ok');
+    // Every balance and valuation pool in the restored copy agrees with its ledger.
+    expect(await checkLedger(ds.manager)).toEqual([]);
+    return new Set(((await ds.query('SELECT id FROM stock_movements')) as { id: string }[]).map((r) => r.id));
+  } finally {
+    await ds.destroy();
+  }
+}
+
+/** A shop with one bin and a part per writer, for writers that move stock. */
+async function stockWorld(parts: number) {
+  const { shop } = await createShopWithUsers(database.db, systemClock, { roles: ['owner'], namePrefix: 'Backup Stock' });
+  const at = new Date();
+  const partIds = Array.from({ length: parts }, () => randomUUID());
+  const binId = await database.db.write(async (manager) => {
+    await manager.insert(
+      PartEntity,
+      partIds.map((id, i) => ({ id, shopId: shop.id, number: `BK-${i}`, key: `BK${i}`, description: `Backup part ${i}`, origin: 'genuine' as const, maker: null, category: 'Engine', unit: 'each', status: 'available' as const, notes: null, createdAt: at, updatedAt: at })),
+    );
+    return (await createBin(manager, shop.id, { code: 'BK-BIN' }, { actor: { userId: null }, at })).id;
+  });
+  return { shopId: shop.id, partIds, binId };
+}
+
 const repo = path.resolve(import.meta.dirname, '../../../../..');
 
 /** Runs `npm run backup`'s script on a data folder, in its own process. */
@@ -53,19 +87,26 @@ function runBackupCli(dataDir: string, backupsDir: string): Promise<{ code: numb
 }
 
 describe('online backup and restore', () => {
-  it('takes a backup while writes keep committing, and the restore holds every write acknowledged before it began', async () => {
+  it('takes a backup while stock keeps moving, and the restore holds every movement committed before it began', async () => {
     const uploads = path.join(database.dir, 'uploads', 'shop-a');
     fs.mkdirSync(uploads, { recursive: true });
     fs.writeFileSync(path.join(uploads, 'photo-1.jpg'), Buffer.alloc(2048, 7));
+    const world = await stockWorld(4);
 
     const acknowledged: string[] = [];
     let stop = false;
-    // Four writers, each committing one row after another through the write lock, until told to stop.
-    const writers = Array.from({ length: 4 }, async () => {
-      while (!stop) {
-        const row = shopRow();
-        await database.db.write((m) => m.insert(ShopEntity, row));
-        acknowledged.push(row.id);
+    // Four writers, one per part, each committing movements one after another through the write
+    // lock (two units in at a changing cost, one out), until told to stop. A movement counts as
+    // committed once its write has returned.
+    const writers = world.partIds.map(async (partId) => {
+      for (let n = 0; !stop; n++) {
+        const ctx = { actor: { userId: null }, at: new Date() };
+        const moved = await database.db.write(async (manager) =>
+          n % 3 === 2
+            ? issueStock(manager, world.shopId, { partId, binId: world.binId, condition: 'new', quantity: 1 }, ctx)
+            : receiveStock(manager, world.shopId, { partId, binId: world.binId, condition: 'new', quantity: 2, unitCostMinor: 1000 + n }, ctx),
+        );
+        acknowledged.push(...moved.map((m) => m.id));
         await new Promise((r) => setImmediate(r));
       }
     });
@@ -89,7 +130,8 @@ describe('online backup and restore', () => {
     const target = path.join(work, 'restored');
     const restored = restoreBackup({ backupDir: dir!, dataDir: target, databasePath: path.join(target, 'tappet.sqlite'), uploadsDir: path.join(target, 'uploads'), backupsDir: path.join(target, 'backups') });
     expect(restored.replacedDir).toBeNull();
-    const ids = await shopIdsIn(path.join(target, 'tappet.sqlite'));
+    const ids = await movementIdsIn(path.join(target, 'tappet.sqlite'));
+    // Every movement committed before the backup began is in the restored copy.
     expect(before.filter((id) => !ids.has(id))).toEqual([]);
     // A snapshot: it cannot hold everything written after it.
     expect(acknowledged.filter((id) => !ids.has(id)).length).toBeGreaterThan(0);

@@ -70,7 +70,7 @@ describe('session time-outs', () => {
 });
 
 describe('session cookie over https', () => {
-  it('uses the __Host- prefix and Secure when PUBLIC_URL is https', async () => {
+  it('uses the __Host- prefix and Secure when PUBLIC_URL is https, still HttpOnly and SameSite', async () => {
     const secure = await createTestContext({ env: { PUBLIC_URL: 'https://tappet.test' } });
     try {
       const s = await seedShop(secure, ['viewer']);
@@ -82,6 +82,8 @@ describe('session cookie over https', () => {
       const cookie = String(res.headers['set-cookie']);
       expect(cookie).toMatch(/^__Host-tappet_session=/);
       expect(cookie).toMatch(/; Secure/);
+      expect(cookie).toMatch(/; HttpOnly/i);
+      expect(cookie).toMatch(/; SameSite=Lax/i);
       expect(cookie).toMatch(/; Path=\//);
       expect(cookie).not.toMatch(/Domain=/i);
       const token = sessionTokenFrom(res, '__Host-tappet_session')!;

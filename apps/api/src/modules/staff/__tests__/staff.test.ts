@@ -187,6 +187,20 @@ describe('roles, limits, deactivation', () => {
     await owner.patch(`${base}/${viewerMembership}/spending-limit`).set(csrf).send({ spendingLimitMinor: 100 }).expect(409);
   });
 
+  it('a buyer cannot raise their own spending limit or promote themselves: 403, nothing changed, nothing audited', async () => {
+    const buyerMembership = await membershipIdOf(seeded.byRole.buyer.id);
+    await owner.patch(`${base}/${buyerMembership}/spending-limit`).set(csrf).send({ spendingLimitMinor: 10_000 }).expect(200);
+    const buyer = await signedInAgent(ctx.app, seeded.byRole.buyer.email, seeded.password);
+    const before = { membership: await ctx.db.reader.findOneByOrFail(MembershipEntity, { id: buyerMembership }), audit: await ctx.db.reader.count(AuditEventEntity) };
+    await buyer.patch(`${base}/${buyerMembership}/spending-limit`).set(csrf).send({ spendingLimitMinor: 99_999_999 }).expect(403);
+    await buyer.patch(`${base}/${buyerMembership}/spending-limit`).set(csrf).send({ spendingLimitMinor: null }).expect(403);
+    await buyer.patch(`${base}/${buyerMembership}/role`).set(csrf).send({ role: 'owner' }).expect(403);
+    // Nor through a field the sign-in answer shows: the contract has no such field to set.
+    expect((await buyer.post(`/api/me/active-shop`).set(csrf).send({ shopId: seeded.shop.id, spendingLimitMinor: null })).status).toBe(400);
+    expect(await ctx.db.reader.findOneByOrFail(MembershipEntity, { id: buyerMembership })).toEqual(before.membership);
+    expect(await ctx.db.reader.count(AuditEventEntity)).toBe(before.audit);
+  });
+
   it('keeps the last active owner: demoting or deactivating them is a 409', async () => {
     const ownerMembership = await membershipIdOf(seeded.byRole.owner.id);
     const demote = await owner.patch(`${base}/${ownerMembership}/role`).set(csrf).send({ role: 'viewer' }).expect(409);

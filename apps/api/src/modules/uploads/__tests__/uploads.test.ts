@@ -1,5 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import zlib from 'node:zlib';
 import AdmZip from 'adm-zip';
 import exifr from 'exifr';
 import sharp from 'sharp';
@@ -10,6 +11,7 @@ import { VehicleFileEntity } from '../../vehicles/vehicles.entity';
 import { tinyPdf } from '../../vehicles/vehicles.test-fixture';
 import { assertStorageKey, localFileStore, type FileStore } from '../file-store';
 import { vehicleUploadLimits } from '../upload-middleware';
+import { maxInputPixels } from '../upload-pipeline';
 
 type Agent = Awaited<ReturnType<typeof signedInAgent>>;
 
@@ -28,6 +30,29 @@ function storedFiles(dir: string, shop: string): string[] {
   const root = path.join(dir, shop);
   if (!fs.existsSync(root)) return [];
   return (fs.readdirSync(root, { recursive: true, withFileTypes: true }) as fs.Dirent[]).filter((d) => d.isFile()).map((d) => path.relative(root, path.join(d.parentPath, d.name)));
+}
+
+/**
+ * A decompression bomb: a valid PNG of a few kilobytes that decodes to width × height pixels
+ * (one-bit grey, all black), built by hand because no image library will make one this size cheaply.
+ */
+function pngBomb(width: number, height: number): Buffer {
+  const chunk = (type: string, data: Buffer) => {
+    const body = Buffer.concat([Buffer.from(type, 'latin1'), data]);
+    const length = Buffer.alloc(4);
+    length.writeUInt32BE(data.length);
+    const crc = Buffer.alloc(4);
+    crc.writeUInt32BE(zlib.crc32(body));
+    return Buffer.concat([length, body, crc]);
+  };
+  const header = Buffer.alloc(13);
+  header.writeUInt32BE(width, 0);
+  header.writeUInt32BE(height, 4);
+  header.set([1, 0, 0, 0, 0], 8); // bit depth 1, greyscale, deflate, no filter, no interlace
+  // Each row: filter byte 0, then width bits of zero.
+  const raw = Buffer.alloc(height * (1 + Math.ceil(width / 8)));
+  const signature = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+  return Buffer.concat([signature, chunk('IHDR', header), chunk('IDAT', zlib.deflateSync(raw, { level: 9 })), chunk('IEND', Buffer.alloc(0))]);
 }
 
 /** A JPEG carrying a GPS position (51.5 N, 0.1167 W) and a camera make in its EXIF. */
@@ -174,6 +199,19 @@ describe('bad uploads leave nothing behind', () => {
     const res = await req;
     expect(res.status).toBe(400);
     expect(res.body.error.message).toBe(`Upload at most ${vehicleUploadLimits.maxFiles} files at a time.`);
+    expect(await snapshot()).toEqual(before);
+  });
+
+  it('refuses a decompression bomb (a small PNG of 100 megapixels) with a clear 400, storing nothing', async () => {
+    const bomb = pngBomb(10_000, 10_000);
+    expect(bomb.length).toBeLessThan(vehicleUploadLimits.maxFileBytes);
+    // A well-formed image, so the refusal is for its size in pixels, not for damage.
+    expect(await sharp(bomb).metadata()).toMatchObject({ format: 'png', width: 10_000, height: 10_000 });
+    expect(10_000 * 10_000).toBeGreaterThan(maxInputPixels);
+    const before = await snapshot();
+    const res = await owner.post(files()).set(csrf).attach('files', bomb, 'bomb.png');
+    expect(res.status, JSON.stringify(res.body)).toBe(400);
+    expect(res.body.error.message).toMatch(/too large in pixels/);
     expect(await snapshot()).toEqual(before);
   });
 
