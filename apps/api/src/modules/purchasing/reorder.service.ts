@@ -3,10 +3,10 @@ import { defaultShopSettings, type PurchaseOrder, type ReorderListResponse, type
 import type { Database } from '../../db/write-lock';
 import type { Clock } from '../../lib/clock';
 import type { AuditActor } from '../audit/audit.service';
-import { PartEntity, type PartRow } from '../catalogue/catalogue.entity';
+import type { PartRow } from '../catalogue/catalogue.entity';
 import type { CatalogueService } from '../catalogue/catalogue.service';
 import { ShopSettingsEntity } from '../settings/settings.entity';
-import { freeStockByPart } from '../stock/stock.queries';
+import { freeSellableStockOfShop } from '../stock/stock.queries';
 import type { OrdersService } from './orders.service';
 import { waitingSpecialOrders } from './special-orders';
 import { ListingEntity, PartPurchasingEntity, SupplierEntity, type ListingRow, type SupplierRow } from './purchasing.entity';
@@ -18,6 +18,9 @@ const ON_ORDER = `('draft', 'awaiting_approval', 'approved', 'sent', 'partly_rec
 /** A date as SQLite stores TypeORM datetimes, for comparisons in SQL. */
 const sqlDate = (d: Date) => d.toISOString().replace('T', ' ').replace('Z', '');
 const parseSqlDate = (s: string | Date) => (s instanceof Date ? s : new Date(`${s.replace(' ', 'T')}${s.endsWith('Z') ? '' : 'Z'}`));
+
+/** What the reorder list needs of a part. */
+type PartBrief = Pick<PartRow, 'id' | 'number' | 'description' | 'status'>;
 
 interface Feed {
   partId: string;
@@ -64,7 +67,10 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
     }
     for (const days of issuedDaily.values()) for (let i = 0; i < days.length; i++) days[i] = Math.max(0, days[i]!);
 
-    const parts = new Map((await db.reader.find(PartEntity, { where: { shopId } })).map((p) => [p.id, p]));
+    // Only the columns used, without entity hydration: over a whole catalogue that costs more than the query.
+    const parts = new Map(
+      (await db.reader.query<PartBrief[]>(`SELECT id, number, description, status FROM parts WHERE shop_id = ?`, [shopId])).map((p) => [p.id, p]),
+    );
     const graph = await catalogue.graphOf(shopId);
     const feeds = new Map<string, Map<string, Feed>>();
     for (const [issuedId, days] of issuedDaily) {
@@ -73,16 +79,15 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
       for (const current of graph.currentParts(issuedId).current) {
         let byFeeder = feeds.get(current.partId);
         if (!byFeeder) feeds.set(current.partId, (byFeeder = new Map()));
-        byFeeder.set(issuedId, { partId: issuedId, number: issued.number, daily: days.map((d) => d * current.quantity), ratio: current.quantity });
+        // Feeds are only read, so one unit per unit can share the issued days instead of copying them.
+        byFeeder.set(issuedId, { partId: issuedId, number: issued.number, daily: current.quantity === 1 ? days : days.map((d) => d * current.quantity), ratio: current.quantity });
       }
     }
 
-    // Free stock through the stock module's query; cores are not sellable stock, so they are left out.
-    const free = new Map<string, number>();
-    for (const [id, summary] of await freeStockByPart(db.reader, shopId, [...parts.keys()])) {
-      const n = summary.lines.filter((l) => l.condition !== 'core').reduce((sum, l) => sum + l.free, 0);
-      if (n > 0) free.set(id, n);
-    }
+    // Free stock through the stock module's query (cores are not sellable stock, so left out): one
+    // grouped scan of the shop, where asking part by part re-read the lines chunk by chunk and grew
+    // worse than linearly with the catalogue (docs/performance.md, reorder).
+    const free = await freeSellableStockOfShop(db.reader, shopId);
     const onOrder = new Map(
       (
         await db.reader.query<Array<{ partId: string; n: number }>>(
@@ -262,7 +267,7 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
   }
 
   /** Dead stock: on hand, not issued for `deadStockDays` (or never); slow movers: on hand for more than a year of the window's demand. */
-  async function stockHealth(shopId: string, parts: Map<string, PartRow>, pools: Map<string, { quantity: number; value: number }>, issuedDaily: Map<string, number[]>, now: Date, window: number, deadStockDays: number) {
+  async function stockHealth(shopId: string, parts: Map<string, PartBrief>, pools: Map<string, { quantity: number; value: number }>, issuedDaily: Map<string, number[]>, now: Date, window: number, deadStockDays: number) {
     const last = new Map(
       (await db.reader.query<Array<{ partId: string; at: string }>>(`SELECT part_id AS partId, MAX(occurred_at) AS at FROM stock_movements WHERE shop_id = ? AND kind = 'issued' GROUP BY part_id`, [shopId])).map((r) => [r.partId, parseSqlDate(r.at)]),
     );
