@@ -110,5 +110,11 @@ export function createAppRouter(queryClient: QueryClient, createRouter: RouterFa
       ],
     },
   ];
-  return createRouter(routes);
+  const router = createRouter(routes);
+  // Every signed-in screen waits for /api/me first: start it now, beside the first screen's code,
+  // rather than once the layout's chunk has loaded and its loader asks (the loaders find it in
+  // the cache). The public pages (sign-in, invitations, estimate approval) do not need it.
+  const publicPaths: string[] = Object.values(paths.auth).map((p) => p.path);
+  if (!publicPaths.includes(router.state.location.pathname)) void queryClient.prefetchQuery(meQueryOptions());
+  return router;
 }
