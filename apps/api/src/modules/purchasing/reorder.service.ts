@@ -9,7 +9,7 @@ import { ShopSettingsEntity } from '../settings/settings.entity';
 import { freeSellableStockOfShop } from '../stock/stock.queries';
 import type { OrdersService } from './orders.service';
 import { waitingSpecialOrders } from './special-orders';
-import { ListingEntity, PartPurchasingEntity, SupplierEntity, type ListingRow, type SupplierRow } from './purchasing.entity';
+import { PartPurchasingEntity, SupplierEntity, type ListingRow, type SupplierRow } from './purchasing.entity';
 import type { SuppliersService } from './suppliers.service';
 
 const DAY = 86_400_000;
@@ -51,14 +51,17 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
     // Day 0 is the first whole day of the window; the last day is today.
     const today = Math.floor(now.getTime() / DAY) * DAY;
     const start = today - (window - 1) * DAY;
-    const movements = await db.reader.query<Array<{ partId: string; kind: string; delta: number; at: string }>>(
-      `SELECT part_id AS partId, kind, quantity_delta AS delta, occurred_at AS at FROM stock_movements
-       WHERE shop_id = ? AND kind IN ('issued', 'returned') AND condition <> 'core' AND occurred_at >= ? AND occurred_at <= ?`,
-      [shopId, sqlDate(new Date(start)), sqlDate(now)],
+    // Summed per part and day in SQL (day = whole days since the window's start, in integer
+    // seconds): a busy shop has far fewer part-days than movements, and no dates to parse here.
+    const movements = await db.reader.query<Array<{ partId: string; day: number; delta: number }>>(
+      `SELECT part_id AS partId, (CAST(strftime('%s', occurred_at) AS INTEGER) - CAST(? AS INTEGER)) / 86400 AS day, SUM(quantity_delta) AS delta FROM stock_movements
+       WHERE shop_id = ? AND kind IN ('issued', 'returned') AND condition <> 'core' AND occurred_at >= ? AND occurred_at <= ?
+       GROUP BY part_id, day`,
+      [start / 1000, shopId, sqlDate(new Date(start)), sqlDate(now)],
     );
     const issuedDaily = new Map<string, number[]>();
     for (const m of movements) {
-      const day = Math.floor((parseSqlDate(m.at).getTime() - start) / DAY);
+      const day = Number(m.day);
       if (day < 0 || day >= window) continue;
       let days = issuedDaily.get(m.partId);
       if (!days) issuedDaily.set(m.partId, (days = new Array<number>(window).fill(0)));
@@ -106,7 +109,7 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
     const manual = new Map((await db.reader.find(PartPurchasingEntity, { where: { shopId } })).map((r) => [r.partId, r]));
     const supplierRows = new Map((await db.reader.find(SupplierEntity, { where: { shopId } })).map((s) => [s.id, s]));
     const listingsByPart = new Map<string, ListingRow[]>();
-    for (const l of await db.reader.find(ListingEntity, { where: { shopId } })) listingsByPart.set(l.partId, [...(listingsByPart.get(l.partId) ?? []), l]);
+    for (const l of await listingsOf(shopId)) listingsByPart.set(l.partId, [...(listingsByPart.get(l.partId) ?? []), l]);
 
     const candidates = new Set<string>([...feeds.keys(), ...[...manual.values()].filter((m) => m.minQty !== null).map((m) => m.partId)]);
     const suggestions: ReorderSuggestion[] = [];
@@ -264,6 +267,17 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
       ...health,
       suggestionListings,
     };
+  }
+
+  /** Every listing of the shop, read without entity hydration (a listing per part or more: it adds up). */
+  async function listingsOf(shopId: string): Promise<ListingRow[]> {
+    const rows = await db.reader.query<Array<Omit<ListingRow, 'lastPaidAt' | 'createdAt' | 'updatedAt'> & { lastPaidAt: string | null; createdAt: string; updatedAt: string }>>(
+      `SELECT id, shop_id AS shopId, supplier_id AS supplierId, part_id AS partId, supplier_number AS supplierNumber, price_minor AS priceMinor, pack_size AS packSize,
+         min_order_qty AS minOrderQty, lead_time_days AS leadTimeDays, last_paid_unit_minor AS lastPaidUnitMinor, last_paid_at AS lastPaidAt, created_at AS createdAt, updated_at AS updatedAt
+       FROM supplier_listings WHERE shop_id = ?`,
+      [shopId],
+    );
+    return rows.map((r) => ({ ...r, lastPaidAt: r.lastPaidAt === null ? null : parseSqlDate(r.lastPaidAt), createdAt: parseSqlDate(r.createdAt), updatedAt: parseSqlDate(r.updatedAt) }));
   }
 
   /** Dead stock: on hand, not issued for `deadStockDays` (or never); slow movers: on hand for more than a year of the window's demand. */
