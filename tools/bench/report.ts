@@ -18,8 +18,11 @@ export interface Section {
 
 const fmt = (n: number) => (n >= 100 ? n.toFixed(0) : n >= 1 ? n.toFixed(2) : n.toFixed(3));
 
+/** A whole number stays whole (a Lighthouse score of 81 is not "81.00"). */
+const show = (n: number) => (Number.isInteger(n) ? String(n) : fmt(n));
+
 export function figureRow(f: Figure): string {
-  return `| ${f.name} | ${fmt(f.median)} ${f.unit} | ${f.median === f.p95 ? '' : `${fmt(f.p95)} ${f.unit}`} | ${f.ratio === undefined ? '—' : f.ratio.toPrecision(3)} | ${f.target ?? '—'} | ${f.met === undefined ? '—' : f.met ? 'met' : 'NOT met'} | ${f.note ?? ''} |`;
+  return `| ${f.name} | ${show(f.median)} ${f.unit} | ${f.median === f.p95 ? '' : `${show(f.p95)} ${f.unit}`} | ${f.ratio === undefined ? '—' : f.ratio.toPrecision(3)} | ${f.target ?? '—'} | ${f.met === undefined ? '—' : f.met ? 'met' : 'NOT met'} | ${f.note ?? ''} |`;
 }
 
 const TABLE_HEAD = `| figure | median | p95 | ratio to baseline | target | | note |
