@@ -57,7 +57,8 @@ describe('signing in', () => {
     const signIn = requests.find((r) => r.path === '/auth/sign-in');
     expect(signIn?.body).toEqual({ email: 'owner@harbour-works.test', password: 'tappet-demo' });
     expect(signIn?.headers['x-csrf']).toBe('1');
-  });
+    // The first sign-in also loads /api/me's schema on demand (docs/decisions/022-first-load.md).
+  }, 20_000);
 
   it('shows the API’s rate-limit message', async () => {
     const user = userEvent.setup();

@@ -4,6 +4,8 @@ import { createBrowserRouter, redirect, type LoaderFunction, type RouteObject } 
 
 type RouterFactory = (routes: RouteObject[]) => ReturnType<typeof createBrowserRouter>;
 import { paths } from '../config/paths';
+import { lineageQueryOptions } from '../features/catalogue/api/get-lineage';
+import { partQueryOptions } from '../features/catalogue/api/get-part';
 import { homeHref, meQueryOptions } from '../lib/auth';
 import { RootErrorBoundary, RootFallback, RootLayout } from './routes/root';
 
@@ -19,7 +21,7 @@ export interface RouteModule {
 function load(queryClient: QueryClient, importer: () => Promise<RouteModule>) {
   return async () => {
     const { default: Component, clientLoader, ErrorBoundary } = await importer();
-    return { Component, loader: clientLoader?.(queryClient), ...(ErrorBoundary ? { ErrorBoundary } : {}) };
+    return { Component, ...(clientLoader ? { loader: clientLoader(queryClient) } : {}), ...(ErrorBoundary ? { ErrorBoundary } : {}) };
   };
 }
 
@@ -67,7 +69,21 @@ export function createAppRouter(queryClient: QueryClient, createRouter: RouterFa
                 { path: 'lookup', lazy: load(queryClient, () => import('./routes/app/shop/lookup')) },
                 { path: 'catalogue', lazy: load(queryClient, () => import('./routes/app/shop/catalogue/list')) },
                 { path: 'catalogue/import', lazy: load(queryClient, () => import('./routes/app/shop/catalogue/import')) },
-                { path: 'catalogue/:partId', lazy: load(queryClient, () => import('./routes/app/shop/catalogue/part')) },
+                {
+                  path: 'catalogue/:partId',
+                  // Defined here rather than in the page's module, so the part and its lineage are
+                  // asked for while the page's code loads, not after (docs/decisions/022-first-load.md).
+                  loader: async ({ params }) => {
+                    if (params['shopId'] && params['partId']) {
+                      await Promise.all([
+                        queryClient.prefetchQuery(partQueryOptions(params['shopId'], params['partId'])),
+                        queryClient.prefetchQuery(lineageQueryOptions(params['shopId'], params['partId'])),
+                      ]);
+                    }
+                    return null;
+                  },
+                  lazy: load(queryClient, () => import('./routes/app/shop/catalogue/part')),
+                },
                 { path: 'vehicles', lazy: load(queryClient, () => import('./routes/app/shop/vehicles/list')) },
                 { path: 'vehicles/:vehicleId', lazy: load(queryClient, () => import('./routes/app/shop/vehicles/vehicle')) },
                 { path: 'jobs', lazy: load(queryClient, () => import('./routes/app/shop/jobs/list')) },
@@ -110,5 +126,11 @@ export function createAppRouter(queryClient: QueryClient, createRouter: RouterFa
       ],
     },
   ];
-  return createRouter(routes);
+  const router = createRouter(routes);
+  // Every signed-in screen waits for /api/me first: start it now, beside the first screen's code,
+  // rather than once the layout's chunk has loaded and its loader asks (the loaders find it in
+  // the cache). The public pages (sign-in, invitations, estimate approval) do not need it.
+  const publicPaths: string[] = Object.values(paths.auth).map((p) => p.path);
+  if (!publicPaths.includes(router.state.location.pathname)) void queryClient.prefetchQuery(meQueryOptions());
+  return router;
 }

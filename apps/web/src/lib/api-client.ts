@@ -1,4 +1,4 @@
-import { errorBodySchema } from '@tappet/contracts';
+import type { ErrorBody } from '@tappet/contracts';
 import type { z } from 'zod';
 import { env } from '../config/env';
 
@@ -42,6 +42,19 @@ export function fieldErrorsFrom(details: unknown): Record<string, string> {
   return out;
 }
 
+/**
+ * The API's error body (`errorBodySchema` in libs/contracts), checked by hand: this module is in
+ * the first download and zod is not (docs/decisions/022-first-load.md).
+ */
+function errorBodyOf(body: unknown): ErrorBody | null {
+  if (!body || typeof body !== 'object') return null;
+  const error = (body as { error?: unknown }).error;
+  if (!error || typeof error !== 'object') return null;
+  const { code, message, details } = error as Record<string, unknown>;
+  if (typeof code !== 'string' || typeof message !== 'string') return null;
+  return { error: { code, message, ...(details === undefined ? {} : { details }) } };
+}
+
 /** Builds an ApiError from a failed response, whatever its body. */
 export async function errorFromResponse(response: Response): Promise<ApiError> {
   let body: unknown = null;
@@ -50,10 +63,10 @@ export async function errorFromResponse(response: Response): Promise<ApiError> {
   } catch {
     // Not JSON (a proxy's HTML page, an empty body): fall back to the status.
   }
-  const parsed = errorBodySchema.safeParse(body);
+  const parsed = errorBodyOf(body);
   const fallback = fallbackMessages[response.status] ?? 'Something went wrong on our side. Try again in a moment.';
-  if (!parsed.success) return new ApiError(response.status, response.status >= 500 ? 'internal' : 'unknown', fallback);
-  const { code, message, details } = parsed.data.error;
+  if (!parsed) return new ApiError(response.status, response.status >= 500 ? 'internal' : 'unknown', fallback);
+  const { code, message, details } = parsed.error;
   return new ApiError(response.status, code, message || fallback, fieldErrorsFrom(details), details);
 }
 
@@ -61,8 +74,12 @@ export interface RequestOptions<T> {
   method?: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
   body?: unknown;
   signal?: AbortSignal;
-  /** Checks the response body; a mismatch is reported as an error instead of a wrong screen. */
-  schema?: z.ZodType<T>;
+  /**
+   * Checks the response body; a mismatch is reported as an error instead of a wrong screen. A
+   * function loads the schema (and zod) on demand, in parallel with the request: for the calls
+   * the first screen makes (docs/decisions/022-first-load.md).
+   */
+  schema?: z.ZodType<T> | (() => Promise<z.ZodType<T>>);
 }
 
 /**
@@ -85,6 +102,9 @@ export async function apiRequest<T = unknown>(path: string, options: RequestOpti
     }
   }
 
+  const schema = typeof options.schema === 'function' ? options.schema() : options.schema;
+  // Awaited below; if the request fails first, its error is the one to report.
+  if (schema instanceof Promise) schema.catch(() => undefined);
   let response: Response;
   try {
     response = await fetch(`${env.apiBaseUrl}${path}`, { method, headers, body, credentials: 'same-origin', signal: options.signal });
@@ -98,8 +118,8 @@ export async function apiRequest<T = unknown>(path: string, options: RequestOpti
 
   const text = await response.text();
   const data: unknown = text ? JSON.parse(text) : undefined;
-  if (!options.schema) return data as T;
-  const checked = options.schema.safeParse(data);
+  if (!schema) return data as T;
+  const checked = (await schema).safeParse(data);
   if (!checked.success) throw new ApiError(response.status, 'unexpected_response', 'Tappet answered in a way this page does not understand. Reload the page.');
   return checked.data;
 }

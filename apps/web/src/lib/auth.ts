@@ -1,11 +1,14 @@
-import { meWithActiveShopSchema } from '@tappet/contracts';
+import type { MeWithActiveShop } from '@tappet/contracts';
 import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
-import type { z } from 'zod';
 import { ApiError, api } from './api-client';
 
+/**
+ * /api/me's schema, loaded on demand: /api/me is the first request of every screen, and the
+ * schema would otherwise bring zod into the first download (docs/decisions/022-first-load.md).
+ */
+export const meSchema = () => import('./me-schema').then((m) => m.meSchema);
 /** /api/me: the person, their memberships and the session's active shop. */
-export const meSchema = meWithActiveShopSchema;
-export type Me = z.infer<typeof meSchema>;
+export type Me = MeWithActiveShop;
 export type MembershipView = Me['memberships'][number];
 
 export const meQueryKey = ['me'] as const;

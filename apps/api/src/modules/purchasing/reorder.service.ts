@@ -3,13 +3,13 @@ import { defaultShopSettings, type PurchaseOrder, type ReorderListResponse, type
 import type { Database } from '../../db/write-lock';
 import type { Clock } from '../../lib/clock';
 import type { AuditActor } from '../audit/audit.service';
-import { PartEntity, type PartRow } from '../catalogue/catalogue.entity';
+import type { PartRow } from '../catalogue/catalogue.entity';
 import type { CatalogueService } from '../catalogue/catalogue.service';
 import { ShopSettingsEntity } from '../settings/settings.entity';
-import { freeStockByPart } from '../stock/stock.queries';
+import { freeSellableStockOfShop } from '../stock/stock.queries';
 import type { OrdersService } from './orders.service';
 import { waitingSpecialOrders } from './special-orders';
-import { ListingEntity, PartPurchasingEntity, SupplierEntity, type ListingRow, type SupplierRow } from './purchasing.entity';
+import { PartPurchasingEntity, SupplierEntity, type ListingRow, type SupplierRow } from './purchasing.entity';
 import type { SuppliersService } from './suppliers.service';
 
 const DAY = 86_400_000;
@@ -18,6 +18,9 @@ const ON_ORDER = `('draft', 'awaiting_approval', 'approved', 'sent', 'partly_rec
 /** A date as SQLite stores TypeORM datetimes, for comparisons in SQL. */
 const sqlDate = (d: Date) => d.toISOString().replace('T', ' ').replace('Z', '');
 const parseSqlDate = (s: string | Date) => (s instanceof Date ? s : new Date(`${s.replace(' ', 'T')}${s.endsWith('Z') ? '' : 'Z'}`));
+
+/** What the reorder list needs of a part. */
+type PartBrief = Pick<PartRow, 'id' | 'number' | 'description' | 'status'>;
 
 interface Feed {
   partId: string;
@@ -48,14 +51,17 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
     // Day 0 is the first whole day of the window; the last day is today.
     const today = Math.floor(now.getTime() / DAY) * DAY;
     const start = today - (window - 1) * DAY;
-    const movements = await db.reader.query<Array<{ partId: string; kind: string; delta: number; at: string }>>(
-      `SELECT part_id AS partId, kind, quantity_delta AS delta, occurred_at AS at FROM stock_movements
-       WHERE shop_id = ? AND kind IN ('issued', 'returned') AND condition <> 'core' AND occurred_at >= ? AND occurred_at <= ?`,
-      [shopId, sqlDate(new Date(start)), sqlDate(now)],
+    // Summed per part and day in SQL (day = whole days since the window's start, in integer
+    // seconds): a busy shop has far fewer part-days than movements, and no dates to parse here.
+    const movements = await db.reader.query<Array<{ partId: string; day: number; delta: number }>>(
+      `SELECT part_id AS partId, (CAST(strftime('%s', occurred_at) AS INTEGER) - CAST(? AS INTEGER)) / 86400 AS day, SUM(quantity_delta) AS delta FROM stock_movements
+       WHERE shop_id = ? AND kind IN ('issued', 'returned') AND condition <> 'core' AND occurred_at >= ? AND occurred_at <= ?
+       GROUP BY part_id, day`,
+      [start / 1000, shopId, sqlDate(new Date(start)), sqlDate(now)],
     );
     const issuedDaily = new Map<string, number[]>();
     for (const m of movements) {
-      const day = Math.floor((parseSqlDate(m.at).getTime() - start) / DAY);
+      const day = Number(m.day);
       if (day < 0 || day >= window) continue;
       let days = issuedDaily.get(m.partId);
       if (!days) issuedDaily.set(m.partId, (days = new Array<number>(window).fill(0)));
@@ -64,7 +70,10 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
     }
     for (const days of issuedDaily.values()) for (let i = 0; i < days.length; i++) days[i] = Math.max(0, days[i]!);
 
-    const parts = new Map((await db.reader.find(PartEntity, { where: { shopId } })).map((p) => [p.id, p]));
+    // Only the columns used, without entity hydration: over a whole catalogue that costs more than the query.
+    const parts = new Map(
+      (await db.reader.query<PartBrief[]>(`SELECT id, number, description, status FROM parts WHERE shop_id = ?`, [shopId])).map((p) => [p.id, p]),
+    );
     const graph = await catalogue.graphOf(shopId);
     const feeds = new Map<string, Map<string, Feed>>();
     for (const [issuedId, days] of issuedDaily) {
@@ -73,16 +82,15 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
       for (const current of graph.currentParts(issuedId).current) {
         let byFeeder = feeds.get(current.partId);
         if (!byFeeder) feeds.set(current.partId, (byFeeder = new Map()));
-        byFeeder.set(issuedId, { partId: issuedId, number: issued.number, daily: days.map((d) => d * current.quantity), ratio: current.quantity });
+        // Feeds are only read, so one unit per unit can share the issued days instead of copying them.
+        byFeeder.set(issuedId, { partId: issuedId, number: issued.number, daily: current.quantity === 1 ? days : days.map((d) => d * current.quantity), ratio: current.quantity });
       }
     }
 
-    // Free stock through the stock module's query; cores are not sellable stock, so they are left out.
-    const free = new Map<string, number>();
-    for (const [id, summary] of await freeStockByPart(db.reader, shopId, [...parts.keys()])) {
-      const n = summary.lines.filter((l) => l.condition !== 'core').reduce((sum, l) => sum + l.free, 0);
-      if (n > 0) free.set(id, n);
-    }
+    // Free stock through the stock module's query (cores are not sellable stock, so left out): one
+    // grouped scan of the shop, where asking part by part re-read the lines chunk by chunk and grew
+    // worse than linearly with the catalogue (docs/performance.md, reorder).
+    const free = await freeSellableStockOfShop(db.reader, shopId);
     const onOrder = new Map(
       (
         await db.reader.query<Array<{ partId: string; n: number }>>(
@@ -101,7 +109,7 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
     const manual = new Map((await db.reader.find(PartPurchasingEntity, { where: { shopId } })).map((r) => [r.partId, r]));
     const supplierRows = new Map((await db.reader.find(SupplierEntity, { where: { shopId } })).map((s) => [s.id, s]));
     const listingsByPart = new Map<string, ListingRow[]>();
-    for (const l of await db.reader.find(ListingEntity, { where: { shopId } })) listingsByPart.set(l.partId, [...(listingsByPart.get(l.partId) ?? []), l]);
+    for (const l of await listingsOf(shopId)) listingsByPart.set(l.partId, [...(listingsByPart.get(l.partId) ?? []), l]);
 
     const candidates = new Set<string>([...feeds.keys(), ...[...manual.values()].filter((m) => m.minQty !== null).map((m) => m.partId)]);
     const suggestions: ReorderSuggestion[] = [];
@@ -261,8 +269,19 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
     };
   }
 
+  /** Every listing of the shop, read without entity hydration (a listing per part or more: it adds up). */
+  async function listingsOf(shopId: string): Promise<ListingRow[]> {
+    const rows = await db.reader.query<Array<Omit<ListingRow, 'lastPaidAt' | 'createdAt' | 'updatedAt'> & { lastPaidAt: string | null; createdAt: string; updatedAt: string }>>(
+      `SELECT id, shop_id AS shopId, supplier_id AS supplierId, part_id AS partId, supplier_number AS supplierNumber, price_minor AS priceMinor, pack_size AS packSize,
+         min_order_qty AS minOrderQty, lead_time_days AS leadTimeDays, last_paid_unit_minor AS lastPaidUnitMinor, last_paid_at AS lastPaidAt, created_at AS createdAt, updated_at AS updatedAt
+       FROM supplier_listings WHERE shop_id = ?`,
+      [shopId],
+    );
+    return rows.map((r) => ({ ...r, lastPaidAt: r.lastPaidAt === null ? null : parseSqlDate(r.lastPaidAt), createdAt: parseSqlDate(r.createdAt), updatedAt: parseSqlDate(r.updatedAt) }));
+  }
+
   /** Dead stock: on hand, not issued for `deadStockDays` (or never); slow movers: on hand for more than a year of the window's demand. */
-  async function stockHealth(shopId: string, parts: Map<string, PartRow>, pools: Map<string, { quantity: number; value: number }>, issuedDaily: Map<string, number[]>, now: Date, window: number, deadStockDays: number) {
+  async function stockHealth(shopId: string, parts: Map<string, PartBrief>, pools: Map<string, { quantity: number; value: number }>, issuedDaily: Map<string, number[]>, now: Date, window: number, deadStockDays: number) {
     const last = new Map(
       (await db.reader.query<Array<{ partId: string; at: string }>>(`SELECT part_id AS partId, MAX(occurred_at) AS at FROM stock_movements WHERE shop_id = ? AND kind = 'issued' GROUP BY part_id`, [shopId])).map((r) => [r.partId, parseSqlDate(r.at)]),
     );

@@ -43,6 +43,20 @@ export async function freeStockByPart(reader: EntityManager, shopId: string, par
   return out;
 }
 
+/**
+ * Free stock of every part of the shop that has some, cores left out (they are not sellable):
+ * one grouped scan of the shop's stock lines. For whole-shop work such as the reorder list, where
+ * freeStockByPart's id lists would re-read the lines chunk by chunk.
+ */
+export async function freeSellableStockOfShop(reader: EntityManager, shopId: string): Promise<Map<string, number>> {
+  const rows = await reader.query<Array<{ partId: string; free: number }>>(
+    `SELECT part_id AS partId, SUM(MAX(0, on_hand - held)) AS free FROM stock_lines
+     WHERE shop_id = ? AND on_hand > 0 AND condition <> 'core' GROUP BY part_id HAVING free > 0`,
+    [shopId],
+  );
+  return new Map(rows.map((r) => [r.partId, Number(r.free)]));
+}
+
 /** The shop's currency (settings, or the default). */
 export async function currencyOf(reader: EntityManager, shopId: string): Promise<string> {
   const [row] = await reader.query<Array<{ currency: string }>>(`SELECT currency FROM shop_settings WHERE shop_id = ?`, [shopId]);

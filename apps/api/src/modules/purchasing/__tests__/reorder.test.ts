@@ -112,4 +112,18 @@ describe('the reorder list', () => {
     expect(suggestionFor(after, 'NEW-1')).toBeUndefined();
     expect(suggestionFor(after, 'MM-1')).toBeUndefined();
   });
+
+  it('counts a part’s free stock over all its bins, and never its cores', async () => {
+    ids['FREE-1'] = await addPart(owner, shopId, 'FREE-1');
+    ids['bin2'] = await ctx.db.write(async (manager) => (await createBin(manager, shopId, { code: 'R-02' }, { actor: { userId: null }, at: ctx.clock.now() })).id);
+    await ctx.db.write(async (manager) => {
+      const at = { actor: { userId: null }, at: ctx.clock.now() };
+      await receiveStock(manager, shopId, { partId: ids['FREE-1']!, binId: ids['bin']!, condition: 'new', quantity: 4, unitCostMinor: 100 }, at);
+      await receiveStock(manager, shopId, { partId: ids['FREE-1']!, binId: ids['bin2']!, condition: 'used_good', quantity: 3, unitCostMinor: 100 }, at);
+      await receiveStock(manager, shopId, { partId: ids['FREE-1']!, binId: ids['bin']!, condition: 'core', quantity: 50, unitCostMinor: 10 }, at);
+    });
+    expect((await buyer.put(`/api/shops/${shopId}/purchasing/parts/${ids['FREE-1']}`).set(csrf).send({ preferredSupplierId: null, minQty: 10, maxQty: 20 })).status).toBe(200);
+    // 4 + 3 free: below the minimum of 10, so up to the maximum of 20. The 50 cores would cover it.
+    expect(suggestionFor(await reorderList(), 'FREE-1')).toMatchObject({ method: 'min_max', supply: { free: 7, onOrder: 0, substitutes: 0, position: 7 }, quantity: 13 });
+  });
 });

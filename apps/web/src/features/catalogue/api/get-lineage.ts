@@ -1,4 +1,4 @@
-import { lineageGraphResponseSchema, type LineageGraphResponse } from '@tappet/contracts';
+import type { LineageGraphResponse } from '@tappet/contracts';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import { shopQueryKey } from '../../../lib/query-client';
@@ -6,7 +6,7 @@ import { shopApi } from './keys';
 
 /** GET /api/shops/:shopId/parts/:partId/lineage: the bounded graph around a part, for the picture. */
 export function getLineage(shopId: string, partId: string, signal?: AbortSignal): Promise<LineageGraphResponse> {
-  return api.get(`${shopApi(shopId)}/parts/${encodeURIComponent(partId)}/lineage`, { schema: lineageGraphResponseSchema, signal });
+  return api.get(`${shopApi(shopId)}/parts/${encodeURIComponent(partId)}/lineage`, { schema: () => import('./schemas').then((m) => m.lineageGraphResponseSchema), signal });
 }
 
 export function lineageQueryOptions(shopId: string, partId: string) {

@@ -1,4 +1,4 @@
-import { partDetailResponseSchema, type PartDetailResponse } from '@tappet/contracts';
+import type { PartDetailResponse } from '@tappet/contracts';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import { shopQueryKey } from '../../../lib/query-client';
@@ -6,7 +6,7 @@ import { shopApi } from './keys';
 
 /** GET /api/shops/:shopId/parts/:partId: the part, its links both ways, fitments, current parts and problems. */
 export function getPart(shopId: string, partId: string, signal?: AbortSignal): Promise<PartDetailResponse> {
-  return api.get(`${shopApi(shopId)}/parts/${encodeURIComponent(partId)}`, { schema: partDetailResponseSchema, signal });
+  return api.get(`${shopApi(shopId)}/parts/${encodeURIComponent(partId)}`, { schema: () => import('./schemas').then((m) => m.partDetailResponseSchema), signal });
 }
 
 export function partQueryOptions(shopId: string, partId: string) {

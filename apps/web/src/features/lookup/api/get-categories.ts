@@ -1,11 +1,10 @@
-import { partListResponseSchema } from '@tappet/contracts';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import { shopQueryKey } from '../../../lib/query-client';
 
 /** The shop's part categories, for the lookup's category filter (the catalogue list answers them with any page). */
 export async function getCategories(shopId: string, signal?: AbortSignal): Promise<string[]> {
-  const page = await api.get(`/shops/${encodeURIComponent(shopId)}/parts?pageSize=1`, { schema: partListResponseSchema, signal });
+  const page = await api.get(`/shops/${encodeURIComponent(shopId)}/parts?pageSize=1`, { schema: () => import('./schemas').then((m) => m.partListResponseSchema), signal });
   return page.categories;
 }
 

@@ -1,4 +1,4 @@
-import { partSearchResponseSchema, type PartSearchResponse } from '@tappet/contracts';
+import type { PartSearchResponse } from '@tappet/contracts';
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import { shopQueryKey } from '../../../lib/query-client';
@@ -10,7 +10,7 @@ export const LOOKUP_LIMIT = 20;
 /** GET /api/shops/:shopId/parts/search: the forgiving lookup. */
 export function searchParts(shopId: string, q: string, filters: LookupFilters = {}, signal?: AbortSignal): Promise<PartSearchResponse> {
   const search = new URLSearchParams({ q, limit: String(LOOKUP_LIMIT), ...filterParams(filters) });
-  return api.get(`/shops/${encodeURIComponent(shopId)}/parts/search?${search.toString()}`, { schema: partSearchResponseSchema, signal });
+  return api.get(`/shops/${encodeURIComponent(shopId)}/parts/search?${search.toString()}`, { schema: () => import('./schemas').then((m) => m.partSearchResponseSchema), signal });
 }
 
 export function searchPartsQueryOptions(shopId: string, q: string, filters: LookupFilters = {}) {

@@ -1,32 +1,23 @@
-import type { QueryClient } from '@tanstack/react-query';
 import { ErrorState, LoadingState, PartNumber } from '@tappet/ui';
-import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { lazy, Suspense } from 'react';
+import { Link, useParams } from 'react-router-dom';
 import { NotFoundContent } from '../../../../../components/errors/not-found';
 import { paths } from '../../../../../config/paths';
-import { lineageQueryOptions, useLineage } from '../../../../../features/catalogue/api/get-lineage';
-import { partQueryOptions, usePart } from '../../../../../features/catalogue/api/get-part';
+import { useLineage } from '../../../../../features/catalogue/api/get-lineage';
+import { usePart } from '../../../../../features/catalogue/api/get-part';
 import { PartView } from '../../../../../features/catalogue/components/part-view';
 import { PrintLabelsButton } from '../../../../../features/labels/components/print-labels-dialog';
-import { PartPurchasingPanel } from '../../../../../features/purchasing/components/part-purchasing-panel';
-import { PartStockPanel } from '../../../../../features/stock/components/part-stock-panel';
-import { PartPricePanel } from '../../../../../features/sales/components/part-price-panel';
 import { useCan } from '../../../../../lib/ability';
 import { ApiError, errorMessage } from '../../../../../lib/api-client';
 import { useDocumentTitle } from '../../../../../lib/use-document-title';
 
-export const clientLoader =
-  (queryClient: QueryClient) =>
-  async ({ params }: LoaderFunctionArgs) => {
-    if (params.shopId && params.partId) {
-      await Promise.all([
-        queryClient.prefetchQuery(partQueryOptions(params.shopId, params.partId)),
-        queryClient.prefetchQuery(lineageQueryOptions(params.shopId, params.partId)),
-      ]);
-    }
-    return null;
-  };
+// The panels below the part (stock, purchasing, price) fetch their own data and carry their own
+// forms: loaded beside the page's data rather than before the part can show (docs/decisions/022-first-load.md).
+const PartStockPanel = lazy(() => import('../../../../../features/stock/components/part-stock-panel').then((m) => ({ default: m.PartStockPanel })));
+const PartPurchasingPanel = lazy(() => import('../../../../../features/purchasing/components/part-purchasing-panel').then((m) => ({ default: m.PartPurchasingPanel })));
+const PartPricePanel = lazy(() => import('../../../../../features/sales/components/part-price-panel').then((m) => ({ default: m.PartPricePanel })));
 
-/** One part: its number as the hero, details, current number, lineage picture, links and fitment. */
+/** One part (its data is prefetched by the router's loader, see app/router.tsx): its number as the hero, details, current number, lineage picture, links and fitment. */
 export default function PartRoute() {
   const { shopId = '', partId = '' } = useParams();
   const part = usePart(shopId, partId);
@@ -71,9 +62,11 @@ export default function PartRoute() {
         canEdit={canEdit}
         lineage={{ data: lineage.data, isPending: lineage.isPending, error: lineage.error, refetch: () => void lineage.refetch() }}
       />
-      {canReadStock && <PartStockPanel shopId={shopId} partId={p.id} />}
-      {canReadPurchasing && <PartPurchasingPanel shopId={shopId} partId={p.id} />}
-      <PartPricePanel shopId={shopId} partId={p.id} canSetListPrice={canSetListPrice} />
+      <Suspense fallback={<LoadingState label="Loading stock, purchasing and price…" />}>
+        {canReadStock && <PartStockPanel shopId={shopId} partId={p.id} />}
+        {canReadPurchasing && <PartPurchasingPanel shopId={shopId} partId={p.id} />}
+        <PartPricePanel shopId={shopId} partId={p.id} canSetListPrice={canSetListPrice} />
+      </Suspense>
     </>
   );
 }
