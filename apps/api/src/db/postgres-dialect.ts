@@ -58,51 +58,62 @@ function sqliteShapedParameter(value: unknown): unknown {
   return value;
 }
 
-/**
- * Rewrites SQLite-flavoured SQL for PostgreSQL, outside string literals, quoted identifiers and
- * dollar-quoted bodies: `?` → `$1, $2, …`; `LIKE` → `ILIKE` (SQLite's LIKE ignores ASCII case);
- * an unquoted camelCase alias (`AS shopId`) is quoted, since PostgreSQL would fold it to lower case.
- * `COLLATE NOCASE` needs no rewrite: the first PostgreSQL migration creates a collation `nocase`.
- */
-export function translateSql(sql: string): string {
-  let out = '';
-  let n = 0;
-  let i = 0;
+/** SQL cut into pieces to rewrite (`plain`) and pieces to keep: string literals, quoted identifiers, dollar-quoted bodies. */
+function pieces(sql: string): Array<{ plain: boolean; text: string }> {
+  const out: Array<{ plain: boolean; text: string }> = [];
   let plain = '';
-  const flush = () => {
-    out += plain
-      .replace(/\?/g, () => `$${++n}`)
-      .replace(/\bLIKE\b/gi, 'ILIKE')
-      .replace(/\bAS(\s+)([a-z][a-z0-9_]*[A-Z][A-Za-z0-9_]*)\b/g, 'AS$1"$2"');
+  let i = 0;
+  const keep = (text: string) => {
+    if (plain) out.push({ plain: true, text: plain });
     plain = '';
+    out.push({ plain: false, text });
   };
   while (i < sql.length) {
-    const c = sql[i];
+    const c = sql[i]!;
+    const dollar = c === '$' ? /^\$[A-Za-z_]*\$/.exec(sql.slice(i)) : null;
     if (c === "'" || c === '"') {
-      flush();
       let j = i + 1;
-      while (j < sql.length) {
-        if (sql[j] === c) {
-          if (sql[j + 1] === c) j += 2;
-          else break;
-        } else j++;
-      }
-      out += sql.slice(i, j + 1);
+      while (j < sql.length && !(sql[j] === c && sql[j + 1] !== c)) j += sql[j] === c ? 2 : 1;
+      keep(sql.slice(i, j + 1));
       i = j + 1;
-    } else if (c === '$' && /^\$[A-Za-z_]*\$/.test(sql.slice(i))) {
-      flush();
-      const tag = /^\$[A-Za-z_]*\$/.exec(sql.slice(i))![0];
-      const end = sql.indexOf(tag, i + tag.length);
-      const stop = end < 0 ? sql.length : end + tag.length;
-      out += sql.slice(i, stop);
+    } else if (dollar) {
+      const end = sql.indexOf(dollar[0], i + dollar[0].length);
+      const stop = end < 0 ? sql.length : end + dollar[0].length;
+      keep(sql.slice(i, stop));
       i = stop;
     } else {
       plain += c;
       i++;
     }
   }
-  flush();
+  if (plain) out.push({ plain: true, text: plain });
   return out;
+}
+
+/** An unquoted camelCase alias: `AS shopId`. */
+const camelAlias = /\bAS\s+([a-z][a-z0-9_]*[A-Z][A-Za-z0-9_]*)\b/g;
+
+/**
+ * Rewrites SQLite-flavoured SQL for PostgreSQL, outside string literals, quoted identifiers and
+ * dollar-quoted bodies: `?` → `$1, $2, …`; `LIKE` → `ILIKE` (SQLite's LIKE ignores ASCII case);
+ * unquoted camelCase aliases (`AS shopId`, and `ORDER BY shopId` after it) are quoted, since
+ * PostgreSQL would fold them to lower case. `COLLATE NOCASE` needs no rewrite: the first
+ * PostgreSQL migration creates a collation named `nocase`.
+ */
+export function translateSql(sql: string): string {
+  const parts = pieces(sql);
+  const aliases = new Set<string>();
+  for (const p of parts) if (p.plain) for (const m of p.text.matchAll(camelAlias)) aliases.add(m[1]!);
+  const aliasUse = aliases.size ? new RegExp(`(^|[^.\\w])(${[...aliases].join('|')})\\b`, 'g') : null;
+  let n = 0;
+  return parts
+    .map((p) => {
+      if (!p.plain) return p.text;
+      let text = p.text.replace(/\?/g, () => `$${++n}`).replace(/\bLIKE\b/gi, 'ILIKE');
+      if (aliasUse) text = text.replace(aliasUse, '$1"$2"');
+      return text;
+    })
+    .join('');
 }
 
 const translated = new Map<string, string>();

@@ -31,3 +31,10 @@ describe('sqliteTimeText', () => {
     expect(sqliteTimeText(new Date('2026-03-04T05:06:07.089Z'))).toBe('2026-03-04 05:06:07.089');
   });
 });
+
+describe('translateSql and aliases used again', () => {
+  it('quotes a camelCase alias wherever the query uses it, not a column of the same letters after a dot', () => {
+    expect(translateSql('SELECT COALESCE(t.number, l.to_number) AS toNumber FROM l ORDER BY l.kind, toNumber')).toBe('SELECT COALESCE(t.number, l.to_number) AS "toNumber" FROM l ORDER BY l.kind, "toNumber"');
+    expect(translateSql('SELECT x.partId, y AS partId FROM x')).toBe('SELECT x.partId, y AS "partId" FROM x');
+  });
+});
