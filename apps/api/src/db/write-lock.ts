@@ -79,14 +79,39 @@ export class Database {
    */
   private async writeSerializable<T>(work: WriteWork<T>): Promise<T> {
     for (let attempt = 1; ; attempt++) {
+      await this.writerSlot();
       try {
         return await insideWrite.run(this, () => this.dataSource.transaction('SERIALIZABLE', (manager) => work(manager)));
       } catch (err) {
         if (attempt >= maxSerializableAttempts || !isRetryable(err)) throw err;
-        // Random back-off so that the transactions that collided do not collide again in step.
-        await new Promise((resolve) => setTimeout(resolve, Math.random() * 5 * attempt));
+      } finally {
+        this.releaseWriterSlot();
       }
+      // Random back-off so that the transactions that collided do not collide again in step.
+      await new Promise((resolve) => setTimeout(resolve, Math.random() * 5 * attempt));
     }
+  }
+
+  private writers = 0;
+  private readonly waitingWriters: Array<() => void> = [];
+
+  /**
+   * At most {@link concurrentWriters} transactions at once, fewer than the pool's connections:
+   * work inside a write may still read through `reader` (another pooled connection), and with
+   * every connection held by a writer waiting for one, the pool would starve for ever.
+   */
+  private writerSlot(): Promise<void> {
+    if (this.writers < concurrentWriters) {
+      this.writers++;
+      return Promise.resolve();
+    }
+    return new Promise((resolve) => this.waitingWriters.push(resolve));
+  }
+
+  private releaseWriterSlot(): void {
+    const next = this.waitingWriters.shift();
+    if (next) next(); // the slot passes straight to the next writer
+    else this.writers--;
   }
 
   /** True while the current async context holds this database's write lock. */
@@ -106,6 +131,9 @@ export class Database {
 }
 
 const maxSerializableAttempts = 20;
+
+/** Half of the pool's 10 connections (data-source.ts), leaving the rest for reads. */
+const concurrentWriters = 5;
 
 /** Serialization failure or deadlock: PostgreSQL asks the client to run the transaction again. */
 function isRetryable(err: unknown): boolean {
