@@ -25,6 +25,8 @@ function readEnv(): Env {
 
 async function main(): Promise<void> {
   const env = readEnv();
+  // On SQLite the driver creates the folder with the file; on PostgreSQL it still holds the pid file and uploads.
+  fs.mkdirSync(env.dataDir, { recursive: true });
   const dataSource = createDataSource(databaseLocation(env));
   await dataSource.initialize();
   const migrated = await migrateWithBackup(dataSource, env.backupsDir);
