@@ -134,6 +134,18 @@ function translateCached(sql: string): string {
  */
 export function installPostgresDialect(dataSource: DataSource): void {
   const driver = dataSource.driver;
+  // Columns with a default come back from INSERT … RETURNING; TypeORM's pg driver merges them raw
+  // (an integer flag would reach the entity as 1, not true), so they are hydrated here first.
+  const createGeneratedMap = driver.createGeneratedMap.bind(driver);
+  driver.createGeneratedMap = (metadata, insertResult: Record<string, unknown> | undefined, ...rest) => {
+    if (!insertResult) return createGeneratedMap(metadata, insertResult, ...rest);
+    const hydrated: Record<string, unknown> = {};
+    for (const [key, value] of Object.entries(insertResult)) {
+      const column = metadata.findColumnWithDatabaseName(key);
+      hydrated[key] = column?.transformer ? driver.prepareHydratedValue(value, column) : value;
+    }
+    return createGeneratedMap(metadata, hydrated, ...rest);
+  };
   const createQueryRunner = driver.createQueryRunner.bind(driver);
   driver.createQueryRunner = (mode) => {
     const runner: QueryRunner = createQueryRunner(mode);

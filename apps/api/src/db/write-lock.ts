@@ -135,10 +135,15 @@ const maxSerializableAttempts = 20;
 /** Half of the pool's 10 connections (data-source.ts), leaving the rest for reads. */
 const concurrentWriters = 5;
 
-/** Serialization failure or deadlock: PostgreSQL asks the client to run the transaction again. */
+/**
+ * Serialization failure or deadlock: PostgreSQL asks the client to run the transaction again. A
+ * unique violation too: two transactions taking the same `MAX(seq) + 1` may be told 23505 rather
+ * than 40001; run again, one of them takes the next number. A genuine duplicate fails again and
+ * its error is passed on (services check for duplicates before writing, so none relies on 23505).
+ */
 function isRetryable(err: unknown): boolean {
   const code = (err as { code?: unknown; driverError?: { code?: unknown } }).driverError?.code ?? (err as { code?: unknown }).code;
-  return code === '40001' || code === '40P01';
+  return code === '40001' || code === '40P01' || code === '23505';
 }
 
 class WriteGuard implements EntitySubscriberInterface {

@@ -51,8 +51,8 @@ describe('the FIFO write lock', () => {
     const results = await Promise.allSettled([a, b, c, d, e]);
     expect(results.map((r) => r.status)).toEqual(['fulfilled', 'rejected', 'fulfilled', 'fulfilled', 'fulfilled']);
     expect(await shopNames()).toEqual(['a1', 'a2', 'c1', 'd1', 'd2', 'e1']);
-    // First in, first out, and never interleaved.
-    expect(log).toEqual(['A start', 'A end', 'B start', 'D start', 'D end']);
+    // First in, first out, and never interleaved (SQLite; on PostgreSQL transactions run side by side, decision 019).
+    if (!onPostgres()) expect(log).toEqual(['A start', 'A end', 'B start', 'D start', 'D end']);
   });
 
   it('passes the result of the work on, and its error', async () => {
