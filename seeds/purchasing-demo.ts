@@ -76,7 +76,7 @@ export async function seedPurchasingDemo(manager: EntityManager, shopId: string,
     ]),
   );
   const moving = await manager.query<Array<{ partId: string }>>(
-    `SELECT DISTINCT m.part_id AS partId FROM stock_movements m JOIN parts p ON p.shop_id = m.shop_id AND p.id = m.part_id WHERE m.shop_id = ? AND m.kind = 'issued' AND p.status = 'available' ORDER BY p.key`,
+    `SELECT m.part_id AS partId FROM stock_movements m JOIN parts p ON p.shop_id = m.shop_id AND p.id = m.part_id WHERE m.shop_id = ? AND m.kind = 'issued' AND p.status = 'available' GROUP BY m.part_id, p.key ORDER BY p.key`,
     [shopId],
   );
   const listings = new Map<string, ListingRow>();

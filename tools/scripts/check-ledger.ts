@@ -6,16 +6,16 @@
    (data source, ledger check); see docs/decisions/002-module-boundaries.md. */
 import fs from 'node:fs';
 import { EnvError, loadEnv } from '../../apps/api/src/config/env';
-import { createDataSource } from '../../apps/api/src/db/data-source';
+import { createDataSource, databaseLocation } from '../../apps/api/src/db/data-source';
 import { checkLedger } from '../../apps/api/src/modules/stock/stock.ledger-check';
 
 async function main(): Promise<number> {
   const env = loadEnv();
-  if (!fs.existsSync(env.databasePath)) {
+  if (!env.databaseUrl && !fs.existsSync(env.databasePath)) {
     console.error(`No database at ${env.databasePath}.`);
     return 2;
   }
-  const dataSource = createDataSource(env.databasePath);
+  const dataSource = createDataSource(databaseLocation(env));
   await dataSource.initialize();
   try {
     const mismatches = await checkLedger(dataSource.manager);

@@ -5,7 +5,7 @@ import type { Server } from 'node:http';
 import path from 'node:path';
 import { createApp } from './app';
 import { EnvError, loadEnv, type Env } from './config/env';
-import { createDataSource } from './db/data-source';
+import { createDataSource, databaseLocation } from './db/data-source';
 import { migrateWithBackup } from './db/migrate';
 import { databaseFor } from './db/write-lock';
 import { pidFileName } from './db/backup';
@@ -25,7 +25,9 @@ function readEnv(): Env {
 
 async function main(): Promise<void> {
   const env = readEnv();
-  const dataSource = createDataSource(env.databasePath);
+  // On SQLite the driver creates the folder with the file; on PostgreSQL it still holds the pid file and uploads.
+  fs.mkdirSync(env.dataDir, { recursive: true });
+  const dataSource = createDataSource(databaseLocation(env));
   await dataSource.initialize();
   const migrated = await migrateWithBackup(dataSource, env.backupsDir);
   if (migrated.backupPath) console.log(`Backed up the database to ${migrated.backupPath} before migrating.`);

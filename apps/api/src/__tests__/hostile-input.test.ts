@@ -3,7 +3,7 @@ import type { Express } from 'express';
 import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Database } from '../db/write-lock';
-import { createTestContext, csrf, seedShop, signedInAgent, type TestContext } from '../test-support/test-app';
+import { createTestContext, csrf, onPostgres, seedShop, signedInAgent, type TestContext } from '../test-support/test-app';
 
 // Hostile input (issue 13): malformed, oversized, deep, wrongly typed and Unicode-tricked input to
 // the search, resolve, import, upload and form endpoints. Expected every time: a clear 4xx in the
@@ -25,7 +25,11 @@ afterAll(() => ctx.close());
 
 /** Row counts of every table: a refused request must leave all of them as they were. */
 async function tableCounts(db: Database): Promise<Record<string, number>> {
-  const tables = (await db.reader.query(`SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE 'part_search_%' ORDER BY name`)) as Array<{ name: string }>;
+  const tables = (await db.reader.query(
+    onPostgres()
+      ? `SELECT table_name AS name FROM information_schema.tables WHERE table_schema = 'public' AND table_type = 'BASE TABLE' ORDER BY name`
+      : `SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE 'part_search_%' ORDER BY name`,
+  )) as Array<{ name: string }>;
   const out: Record<string, number> = {};
   for (const { name } of tables) {
     const [row] = (await db.reader.query(`SELECT count(*) AS n FROM "${name}"`)) as Array<{ n: number }>;

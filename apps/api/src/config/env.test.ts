@@ -43,6 +43,14 @@ describe('loadEnv', () => {
     expect(env.databasePath).toBe('/tmp/tappet-x/tappet.sqlite');
   });
 
+  it('uses the SQLite file unless DATABASE_URL names a PostgreSQL database', () => {
+    expect(loadEnv({}).databaseUrl).toBeNull();
+    expect(loadEnv({ DATABASE_URL: ' ' }).databaseUrl).toBeNull();
+    expect(loadEnv({ DATABASE_URL: 'postgres://tappet@db.internal:5432/tappet' }).databaseUrl).toBe('postgres://tappet@db.internal:5432/tappet');
+    expect(loadEnv({ DATABASE_URL: 'postgresql://db.internal/tappet' }).databaseUrl).toBe('postgresql://db.internal/tappet');
+    expect(problemsOf({ DATABASE_URL: 'mysql://db.internal/tappet' })).toEqual(['DATABASE_URL: DATABASE_URL must be a postgres:// URL (leave it unset for the SQLite file)']);
+  });
+
   it('refuses to start in production, naming every missing setting', () => {
     const problems = problemsOf({ NODE_ENV: 'production' });
     expect(problems).toEqual([

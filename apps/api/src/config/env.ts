@@ -10,8 +10,10 @@ export interface Env {
   mode: TappetMode;
   port: number;
   dataDir: string;
-  /** Absolute path of the SQLite file inside `dataDir`. */
+  /** Absolute path of the SQLite file inside `dataDir` (used when `databaseUrl` is null). */
   databasePath: string;
+  /** `postgres://…` from DATABASE_URL: run on PostgreSQL instead of the SQLite file. */
+  databaseUrl: string | null;
   uploadsDir: string;
   backupsDir: string;
   /** Base URL of the app as people reach it, without a trailing slash; e-mail links start with it. */
@@ -65,6 +67,12 @@ const rawSchema = z.object({
   TAPPET_MODE: optionalText.pipe(z.enum(tappetModes, { error: 'TAPPET_MODE must be demo, test or production' }).optional()),
   PORT: optionalText.pipe(port('PORT').optional()),
   TAPPET_DATA_DIR: optionalText,
+  DATABASE_URL: optionalText.pipe(
+    z
+      .string()
+      .regex(/^postgres(ql)?:\/\/\S+$/, 'DATABASE_URL must be a postgres:// URL (leave it unset for the SQLite file)')
+      .optional(),
+  ),
   PUBLIC_URL: optionalText.pipe(z.url({ error: 'PUBLIC_URL must be an absolute http(s) URL', protocol: /^https?$/ }).optional()),
   TRUSTED_ORIGINS: optionalText,
   TRUST_PROXY: optionalText,
@@ -130,6 +138,7 @@ export function loadEnv(source: Record<string, string | undefined> = process.env
     port: portNumber,
     dataDir,
     databasePath: path.join(dataDir, 'tappet.sqlite'),
+    databaseUrl: raw.DATABASE_URL ?? null,
     uploadsDir: path.join(dataDir, 'uploads'),
     backupsDir: path.join(dataDir, 'backups'),
     publicUrl,

@@ -1,4 +1,4 @@
-import { DataSource } from 'typeorm';
+import { DataSource, type EntitySchema } from 'typeorm';
 import { UserEntity } from '../modules/users/users.entity';
 import { MembershipEntity, ShopEntity } from '../modules/shops/shops.entity';
 import { PasswordResetTokenEntity, SessionEntity } from '../modules/auth/auth.entity';
@@ -32,6 +32,8 @@ import { salesEntities } from '../modules/sales/sales.entity';
 import { EstimatesAndConsignment1765800000000 } from './migrations/1765800000000-estimates-and-consignment';
 import { estimateEntities } from '../modules/estimates/estimates.entity';
 import { consignmentEntities } from '../modules/consignment/consignment.entity';
+import { postgresMigrations } from './migrations/postgres';
+import { installPostgresDialect, pgNumberTypes, postgresEntity } from './postgres-dialect';
 
 /** The few better-sqlite3 methods we call (the package ships no type declarations). */
 export interface SqliteHandle {
@@ -58,11 +60,27 @@ export function prepareSqlite(db: SqliteHandle): void {
   db.pragma('busy_timeout = 5000');
 }
 
-/** Creates (does not initialise) the TypeORM data source for one SQLite file. */
-export function createDataSource(databasePath: string): DataSource {
+/** Where the data lives: DATABASE_URL when set, else the SQLite file. */
+export function databaseLocation(env: { databasePath: string; databaseUrl: string | null }): string {
+  return env.databaseUrl ?? env.databasePath;
+}
+
+const isPostgresUrl = (location: string) => /^postgres(ql)?:\/\//.test(location);
+
+/** True when the data source talks to PostgreSQL (several connections, no write lock needed). */
+export function isPostgres(dataSource: DataSource): boolean {
+  return dataSource.options.type === 'postgres';
+}
+
+/**
+ * Creates (does not initialise) the TypeORM data source for a SQLite file path or a
+ * `postgres://` URL: the same entities (mapped by postgres-dialect.ts), each database's migrations.
+ */
+export function createDataSource(location: string): DataSource {
+  if (isPostgresUrl(location)) return createPostgresDataSource(location);
   return new DataSource({
     type: 'better-sqlite3',
-    database: databasePath,
+    database: location,
     entities,
     migrations,
     migrationsRun: false,
@@ -72,6 +90,23 @@ export function createDataSource(databasePath: string): DataSource {
     timeout: 5000,
     prepareDatabase: prepareSqlite,
   });
+}
+
+function createPostgresDataSource(url: string): DataSource {
+  const dataSource = new DataSource({
+    type: 'postgres',
+    url,
+    entities: entities.map((e) => postgresEntity(e as EntitySchema<unknown>)),
+    migrations: postgresMigrations,
+    migrationsRun: false,
+    migrationsTransactionMode: 'each',
+    synchronize: false,
+    logging: false,
+    // Passed to pg's Pool: numbers parsed as on SQLite; times are compared as UTC text anyway.
+    extra: { types: pgNumberTypes, max: 10, options: '-c timezone=UTC' },
+  });
+  installPostgresDialect(dataSource);
+  return dataSource;
 }
 
 /** The raw better-sqlite3 handle behind a data source (for backups and pragmas). */

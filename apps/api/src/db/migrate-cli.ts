@@ -1,11 +1,11 @@
 // `npm run migrate`: runs pending migrations on the configured database, after a backup.
 import { loadEnv, EnvError } from '../config/env';
-import { createDataSource } from './data-source';
+import { createDataSource, databaseLocation } from './data-source';
 import { migrateWithBackup } from './migrate';
 
 async function main(): Promise<void> {
   const env = loadEnv();
-  const dataSource = createDataSource(env.databasePath);
+  const dataSource = createDataSource(databaseLocation(env));
   await dataSource.initialize();
   try {
     const result = await migrateWithBackup(dataSource, env.backupsDir);

@@ -1,7 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import type { DataSource } from 'typeorm';
-import { sqliteHandle } from './data-source';
+import { isPostgres, sqliteHandle } from './data-source';
 
 export interface MigrateResult {
   /** Names of the migrations that ran. */
@@ -16,6 +16,11 @@ export interface MigrateResult {
  * traps 2 and 5). The data source must be initialised.
  */
 export async function migrateWithBackup(dataSource: DataSource, backupsDir: string, now: Date = new Date()): Promise<MigrateResult> {
+  if (isPostgres(dataSource)) {
+    // PostgreSQL is backed up by its operator (pg_dump, base backups): decision 019.
+    const ran = await dataSource.runMigrations({ transaction: 'each' });
+    return { applied: ran.map((m) => m.name), backupPath: null };
+  }
   // Counted first: showMigrations() itself creates the (empty) migrations table.
   const tables = (await dataSource.query(`SELECT count(*) AS n FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name <> 'migrations'`)) as Array<{ n: number }>;
   const pending = await dataSource.showMigrations();

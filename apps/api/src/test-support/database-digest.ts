@@ -7,7 +7,11 @@ import type { Database } from '../db/write-lock';
  * so are rate-limit counters: a refused request still counts against its sender's allowance.
  */
 export async function databaseDigest(db: Database): Promise<Record<string, string>> {
-  const tables = (await db.reader.query(`SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE 'part_search_%' AND name NOT IN ('sessions', 'rate_limit_counters') ORDER BY name`)) as Array<{ name: string }>;
+  const listTables =
+    db.dataSource.options.type === 'postgres'
+      ? `SELECT table_name AS name FROM information_schema.tables WHERE table_schema = current_schema() AND table_type = 'BASE TABLE' AND table_name NOT IN ('migrations', 'typeorm_metadata') AND table_name NOT LIKE 'part\\_search%' ESCAPE '\\'`
+      : `SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE 'part_search_%'`;
+  const tables = ((await db.reader.query(listTables)) as Array<{ name: string }>).filter((t) => !['sessions', 'rate_limit_counters'].includes(t.name)).sort((a, b) => a.name.localeCompare(b.name));
   const out: Record<string, string> = {};
   for (const { name } of tables) {
     const rows = (await db.reader.query(`SELECT * FROM "${name}"`)) as unknown[];

@@ -6,7 +6,10 @@ import path from 'node:path';
 import request from 'supertest';
 import type { Express } from 'express';
 import type { ShopRole } from '@tappet/contracts';
+import { randomUUID } from 'node:crypto';
 import { inject } from 'vitest';
+import pg from 'pg';
+import { databaseUrl } from './global-setup';
 import pino from 'pino';
 import { createApp, type AppDeps } from '../app';
 import { loadEnv, type Env } from '../config/env';
@@ -25,9 +28,40 @@ export interface TestContext {
   close(): Promise<void>;
 }
 
-/** Copies the template database to a temp file of its own and opens it. */
+/** True when the suite runs on PostgreSQL (`npm run test:api:pg`). */
+export const onPostgres = () => inject('postgres') !== null;
+
+/** A database of its own copied from the PostgreSQL template (CREATE DATABASE … TEMPLATE), opened. */
+async function openPostgresTestDatabase(server: { adminUrl: string; template: string }, dir: string) {
+  const name = `tappet_test_${randomUUID().replace(/-/g, '')}`;
+  const admin = new pg.Client(server.adminUrl);
+  await admin.connect();
+  try {
+    await admin.query(`CREATE DATABASE ${name} TEMPLATE ${server.template}`);
+  } finally {
+    await admin.end();
+  }
+  const dataSource = createDataSource(databaseUrl(server.adminUrl, name));
+  await dataSource.initialize();
+  return {
+    dir,
+    dataSource,
+    db: databaseFor(dataSource),
+    async close() {
+      await dataSource.destroy();
+      const dropper = new pg.Client(server.adminUrl);
+      await dropper.connect();
+      await dropper.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`).finally(() => dropper.end());
+      fs.rmSync(dir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Copies the template database to a temp file (or PostgreSQL database) of its own and opens it. */
 export async function openTestDatabase() {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tappet-api-test-'));
+  const server = inject('postgres');
+  if (server) return openPostgresTestDatabase(server, dir);
   const file = path.join(dir, 'tappet.sqlite');
   fs.copyFileSync(inject('templateDbPath'), file);
   const dataSource = createDataSource(file);

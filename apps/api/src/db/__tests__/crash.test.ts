@@ -2,7 +2,7 @@ import { spawn } from 'node:child_process';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDataSource, sqliteHandle } from '../data-source';
-import { openTestDatabase } from '../../test-support/test-app';
+import { openTestDatabase, onPostgres } from '../../test-support/test-app';
 import { createShopWithUsers } from '../../modules/test-support/test-support.service';
 import { systemClock } from '../../lib/clock';
 
@@ -57,7 +57,8 @@ async function stateOf(shopId: string) {
   }
 }
 
-describe(`killed in the middle of a ${ROWS.toLocaleString('en-GB')}-row import commit`, () => {
+// SQLite-specific by nature (decision 019): kills a process writing a SQLite file and checks the file.
+describe.skipIf(onPostgres())(`killed in the middle of a ${ROWS.toLocaleString('en-GB')}-row import commit`, () => {
   // Five imports of ROWS rows; about 12 s per 100,000 rows on a loaded machine, so generous.
   it('leaves a sound database with the import wholly there or wholly absent', { timeout: Math.max(240_000, ROWS * 6) }, async () => {
     // One undisturbed run measures how long an import takes on this machine.

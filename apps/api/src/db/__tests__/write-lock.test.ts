@@ -3,7 +3,7 @@ import { setTimeout as delay } from 'node:timers/promises';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { EntityManager } from 'typeorm';
 import { ShopEntity } from '../../modules/shops/shops.entity';
-import { openTestDatabase } from '../../test-support/test-app';
+import { onPostgres, openTestDatabase } from '../../test-support/test-app';
 
 let database: Awaited<ReturnType<typeof openTestDatabase>>;
 beforeEach(async () => {
@@ -51,8 +51,8 @@ describe('the FIFO write lock', () => {
     const results = await Promise.allSettled([a, b, c, d, e]);
     expect(results.map((r) => r.status)).toEqual(['fulfilled', 'rejected', 'fulfilled', 'fulfilled', 'fulfilled']);
     expect(await shopNames()).toEqual(['a1', 'a2', 'c1', 'd1', 'd2', 'e1']);
-    // First in, first out, and never interleaved.
-    expect(log).toEqual(['A start', 'A end', 'B start', 'D start', 'D end']);
+    // First in, first out, and never interleaved (SQLite; on PostgreSQL transactions run side by side, decision 019).
+    if (!onPostgres()) expect(log).toEqual(['A start', 'A end', 'B start', 'D start', 'D end']);
   });
 
   it('passes the result of the work on, and its error', async () => {
@@ -69,7 +69,8 @@ describe('the FIFO write lock', () => {
     await expect(database.db.write(() => database.db.write(async () => 1))).rejects.toThrow(/inside db.write/);
   });
 
-  it('(why it exists) without the lock, a rollback takes a plain write of someone else with it', async () => {
+  // SQLite-specific by nature (decision 019): PostgreSQL gives each transaction its own connection, so there is no trap to show.
+  it.skipIf(onPostgres())('(why it exists) without the lock, a rollback takes a plain write of someone else with it', async () => {
     const { dataSource } = database;
     const sql = `INSERT INTO shops (id, name, slug, billing_state, created_at) VALUES (?, ?, ?, 'trial', '2026-01-01 00:00:00.000')`;
     const unguarded = dataSource.transaction(async (m) => {

@@ -33,7 +33,7 @@ export interface SearchCandidate {
 /**
  * Where lookup candidates come from. Every method takes the shop and filters inside its own query,
  * so a shop never sees (or is crowded out by) another shop's rows. All full-text SQL is behind
- * this interface: a PostgreSQL implementation would use pg_trgm for the same four questions.
+ * this interface: postgres-part-search-index.ts answers the same questions with pg_trgm.
  */
 export interface PartSearchIndex {
   /** Parts whose own, supplier or equivalent number has exactly this normalised key (no filters: lineage starts here). */
@@ -58,7 +58,7 @@ export interface PartSearchIndex {
 const literal = (s: string) => `"${s.replace(/"/g, '""')}"`;
 
 /** SQL and parameters for the filters, as conditions on parts alias `p`. */
-function filterSql(filters: PartSearchFilters): { sql: string; params: unknown[] } {
+export function filterSql(filters: PartSearchFilters): { sql: string; params: unknown[] } {
   const parts: string[] = [];
   const params: unknown[] = [];
   if (filters.category) {
@@ -104,7 +104,7 @@ export function oneEditPatterns(key: string): string[] {
 }
 
 /** Shortest typed key that can be two typos from a key of 8 characters (the first length forgiving two). */
-const MIN_TWO_TYPO_QUERY = 6;
+export const MIN_TWO_TYPO_QUERY = 6;
 
 /** SQLite FTS5 (trigram tokenizer) implementation over the `part_search` table. */
 export function sqlitePartSearchIndex(reader: () => EntityManager): PartSearchIndex {

@@ -696,7 +696,7 @@ export function createSalesService(deps: SalesServiceDeps) {
           `SELECT m.part_id AS partId, p.number, p.description, -SUM(m.quantity_delta) AS quantity, -SUM(m.value_change_minor) AS cost
            FROM stock_movements m JOIN parts p ON p.shop_id = m.shop_id AND p.id = m.part_id
            WHERE m.shop_id = ? AND m.job_id = ? AND m.kind IN ('issued', 'returned')
-           GROUP BY m.part_id, p.number, p.description HAVING -SUM(m.quantity_delta) > 0 ORDER BY p.key`,
+           GROUP BY m.part_id, p.number, p.description, p.key HAVING -SUM(m.quantity_delta) > 0 ORDER BY p.key`,
           [shopId, jobId],
         );
         const prices = await sellPricesFor(manager, shopId, parts.map((p) => p.partId));

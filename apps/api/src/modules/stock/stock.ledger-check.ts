@@ -32,7 +32,7 @@ export async function checkLedger(reader: EntityManager, shopId?: string): Promi
     `SELECT shop_id AS shopId, part_id AS partId, bin_id AS binId, condition, SUM(d) AS q FROM (
        SELECT shop_id, part_id, bin_id, condition, quantity_delta AS d FROM stock_movements ${shopFilter}
        UNION ALL SELECT shop_id, part_id, to_bin_id, condition, -quantity_delta FROM stock_movements WHERE kind = 'moved'${shopId ? ' AND shop_id = ?' : ''}
-     ) GROUP BY shop_id, part_id, bin_id, condition`,
+     ) AS ledger GROUP BY shop_id, part_id, bin_id, condition`,
     [...shopParams, ...shopParams],
   );
   const cached = await reader.query<Array<{ shopId: string; partId: string; binId: string; condition: string; onHand: number; held: number }>>(

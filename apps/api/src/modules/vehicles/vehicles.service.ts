@@ -297,7 +297,7 @@ export function createVehiclesService(deps: { db: Database; clock: Clock; files:
         .skip((query.page - 1) * query.pageSize)
         .take(query.pageSize)
         .getManyAndCount();
-      const marques = await db.reader.query<Array<{ marque: string }>>(`SELECT DISTINCT marque FROM vehicles WHERE shop_id = ? ORDER BY lower(marque)`, [shopId]);
+      const marques = await db.reader.query<Array<{ marque: string }>>(`SELECT marque FROM vehicles WHERE shop_id = ? GROUP BY marque ORDER BY lower(marque)`, [shopId]);
       return { items: await views(shopId, rows), total, page: query.page, pageSize: query.pageSize, marques: marques.map((m) => m.marque) };
     },
 

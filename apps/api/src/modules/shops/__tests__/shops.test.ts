@@ -138,7 +138,7 @@ describe('POST /api/me/active-shop', () => {
 describe('tenant keys in the database', () => {
   it('refuses a session whose active shop is one its user is not a member of', async () => {
     const session = await ctx.db.reader.findOneByOrFail(SessionEntity, { userId: harbour.byRole.mechanic.id });
-    await expect(ctx.db.write((m) => m.update(SessionEntity, { id: session.id }, { activeShopId: other.shop.id }))).rejects.toThrow(/FOREIGN KEY/);
+    await expect(ctx.db.write((m) => m.update(SessionEntity, { id: session.id }, { activeShopId: other.shop.id }))).rejects.toThrow(/foreign key/i);
   });
 
   it('refuses to change or delete audit events', async () => {

@@ -8,7 +8,7 @@ import { ShopEntity } from '../../shops/shops.entity';
 let ctx: TestContext;
 beforeAll(async () => {
   ctx = await createTestContext();
-  expect(await seedDemo(ctx.db, ctx.clock.now())).toBe(true);
+  expect(await seedDemo(ctx.db, ctx.clock.now(), { uploadsDir: ctx.env.uploadsDir })).toBe(true);
 }, 60_000);
 afterAll(() => ctx.close());
 

@@ -355,7 +355,7 @@ describe('tenant isolation', () => {
     const mine = await owner.post(`${base()}/customers`).set(csrf).send({ name: 'Local Customer' });
     expect(mine.status).toBe(201);
     // The composite key (shop_id, customer_id) has no match in the other shop.
-    await expect(ctx.db.write((m) => m.update(VehicleEntity, { id: otherVehicleId }, { customerId: mine.body.id }))).rejects.toThrow(/FOREIGN KEY/);
+    await expect(ctx.db.write((m) => m.update(VehicleEntity, { id: otherVehicleId }, { customerId: mine.body.id }))).rejects.toThrow(/foreign key/i);
   });
 
   it('a non-member sees 404 for the shop’s vehicle list', async () => {
