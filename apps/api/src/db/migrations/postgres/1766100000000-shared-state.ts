@@ -2,7 +2,7 @@ import type { MigrationInterface, QueryRunner } from 'typeorm';
 
 /** PostgreSQL twin of ../1766100000000-shared-state.ts: rate-limit counters, shops' catalogue versions. */
 export class SharedState1766100000000Pg implements MigrationInterface {
-  name = 'SharedState1766100000000Pg';
+  name = 'SharedState1766100000000';
 
   async up(queryRunner: QueryRunner): Promise<void> {
     await queryRunner.query(`CREATE TABLE rate_limit_counters (
