@@ -51,17 +51,18 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
     // Day 0 is the first whole day of the window; the last day is today.
     const today = Math.floor(now.getTime() / DAY) * DAY;
     const start = today - (window - 1) * DAY;
-    // Summed per part and day in SQL (day = whole days since the window's start, in integer
-    // seconds): a busy shop has far fewer part-days than movements, and no dates to parse here.
-    const movements = await db.reader.query<Array<{ partId: string; day: number; delta: number }>>(
-      `SELECT part_id AS partId, (CAST(strftime('%s', occurred_at) AS INTEGER) - CAST(? AS INTEGER)) / 86400 AS day, SUM(quantity_delta) AS delta FROM stock_movements
+    // Summed per part and calendar day (UTC) in SQL: a busy shop has far fewer part-days than
+    // movements. Times are stored as 'YYYY-MM-DD hh:mm:ss' text, so the day is the first ten
+    // characters, in portable SQL (SQLite and PostgreSQL alike).
+    const movements = await db.reader.query<Array<{ partId: string; day: string; delta: number }>>(
+      `SELECT part_id AS partId, substr(occurred_at, 1, 10) AS day, SUM(quantity_delta) AS delta FROM stock_movements
        WHERE shop_id = ? AND kind IN ('issued', 'returned') AND condition <> 'core' AND occurred_at >= ? AND occurred_at <= ?
-       GROUP BY part_id, day`,
-      [start / 1000, shopId, sqlDate(new Date(start)), sqlDate(now)],
+       GROUP BY part_id, substr(occurred_at, 1, 10)`,
+      [shopId, sqlDate(new Date(start)), sqlDate(now)],
     );
     const issuedDaily = new Map<string, number[]>();
     for (const m of movements) {
-      const day = Number(m.day);
+      const day = Math.round((Date.parse(`${m.day}T00:00:00Z`) - start) / DAY);
       if (day < 0 || day >= window) continue;
       let days = issuedDaily.get(m.partId);
       if (!days) issuedDaily.set(m.partId, (days = new Array<number>(window).fill(0)));

@@ -49,9 +49,10 @@ export async function freeStockByPart(reader: EntityManager, shopId: string, par
  * freeStockByPart's id lists would re-read the lines chunk by chunk.
  */
 export async function freeSellableStockOfShop(reader: EntityManager, shopId: string): Promise<Map<string, number>> {
+  // Lines held in full add nothing, so only lines with something free are summed.
   const rows = await reader.query<Array<{ partId: string; free: number }>>(
-    `SELECT part_id AS partId, SUM(MAX(0, on_hand - held)) AS free FROM stock_lines
-     WHERE shop_id = ? AND on_hand > 0 AND condition <> 'core' GROUP BY part_id HAVING free > 0`,
+    `SELECT part_id AS partId, SUM(on_hand - held) AS free FROM stock_lines
+     WHERE shop_id = ? AND on_hand > held AND condition <> 'core' GROUP BY part_id`,
     [shopId],
   );
   return new Map(rows.map((r) => [r.partId, Number(r.free)]));
