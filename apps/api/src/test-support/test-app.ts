@@ -93,12 +93,14 @@ export async function createTestContext(options: { env?: Record<string, string>;
 }
 
 /**
- * A second app on the same database file, with its own connection, write lock and services, as a
+ * A second app on the same database (file or PostgreSQL database), with its own connection, write lock and services, as a
  * second API process would have it (same env, so the same uploads folder too). Close it before
  * `ctx.close()`.
  */
 export async function openSecondInstance(ctx: TestContext, deps: Partial<AppDeps> = {}): Promise<{ app: Express; db: Database; close(): Promise<void> }> {
-  const dataSource = createDataSource(ctx.env.databasePath);
+  // The same database as the first instance: its PostgreSQL URL, or its SQLite file.
+  const options = ctx.db.dataSource.options;
+  const dataSource = createDataSource(options.type === 'postgres' ? String(options.url) : String(options.database));
   await dataSource.initialize();
   const app = createApp({ dataSource, env: ctx.env, mailer: ctx.mailer, clock: ctx.clock, logger: pino({ level: 'silent' }), ...deps });
   return { app, db: databaseFor(dataSource), close: () => dataSource.destroy() };
