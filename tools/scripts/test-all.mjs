@@ -1,6 +1,6 @@
 // `npm test`: every check, in order, stopping at the first failure.
 // Lint and type-check first (fast, catch most mistakes), then unit and API tests, then the
-// browser tests against a freshly built web app.
+// browser tests against a freshly built web app, then the API tests once more on PostgreSQL.
 import { spawnSync } from 'node:child_process';
 import { ensureChromium } from './ensure-chromium.mjs';
 
@@ -13,6 +13,8 @@ const steps = [
   ['web build', 'npx', ['vite', 'build', '-c', 'apps/web/vite.config.ts', '--logLevel', 'warn']],
   ['web bundle budget', 'node', ['tools/scripts/check-bundle-size.mjs']],
   ['browser tests', 'npx', ['playwright', 'test', '-c', 'apps/e2e/playwright.config.ts']],
+  // The API suite again on a throwaway PostgreSQL (issue 15; installed with apt-get when missing).
+  ['API tests on PostgreSQL', 'node', ['tools/scripts/postgres-for-tests.mjs', 'npx', 'vitest', 'run', '--project', 'api']],
 ];
 
 const env = { ...process.env, NX_DAEMON: 'false', NX_NO_CLOUD: 'true' };
