@@ -111,7 +111,8 @@ export async function insertLinks(db: Database, shopId: string, parts: readonly 
     const chunk = links.slice(i, i + 400);
     await db.write((m) =>
       m.query(
-        `INSERT OR IGNORE INTO part_links (id, shop_id, from_part_id, kind, to_part_id, to_number, to_key, quantity, interchange) VALUES ${chunk.map(() => '(?, ?, ?, ?, ?, ?, ?, ?, ?)').join(', ')}`,
+        // ON CONFLICT rather than SQLite's OR IGNORE, so the scaling benchmark fills PostgreSQL too.
+        `INSERT INTO part_links (id, shop_id, from_part_id, kind, to_part_id, to_number, to_key, quantity, interchange) VALUES ${chunk.map(() => '(?, ?, ?, ?, ?, ?, ?, ?, ?)').join(', ')} ON CONFLICT DO NOTHING`,
         chunk.flat(),
       ),
     );
