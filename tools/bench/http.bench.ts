@@ -24,6 +24,12 @@ const base = `http://127.0.0.1:${PORT}`;
 const CONNECTIONS = 10;
 const SECONDS = 10;
 
+/** CPU seconds (user + system) the process has used so far, from /proc (Linux). */
+function cpuSeconds(pid: number): number {
+  const fields = fs.readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1]!.split(' ');
+  return (Number(fields[11]) + Number(fields[12])) / 100; // utime, stime in clock ticks (USER_HZ = 100)
+}
+
 async function waitForHealth(): Promise<void> {
   for (let i = 0; i < 240; i++) {
     try {
@@ -49,7 +55,9 @@ export async function runHttpBench(partCount = 50_000): Promise<Figure[]> {
   await insertLinks(db, shopId, parts, Math.round(partCount * 0.3));
   await dataSource.destroy();
 
-  const server = spawn(path.join(repo, 'node_modules/.bin/tsx'), [path.join(repo, 'apps/api/src/main.ts')], {
+  // BENCH_HTTP_NODE_ARGS (e.g. `--cpu-prof --cpu-prof-dir=/tmp/prof`) profiles the API process.
+  const nodeArgs = (process.env.BENCH_HTTP_NODE_ARGS ?? '').split(' ').filter(Boolean);
+  const server = spawn(process.execPath, [...nodeArgs, '--import', 'tsx', path.join(repo, 'apps/api/src/main.ts')], {
     cwd: repo,
     env: { ...process.env, TAPPET_MODE: 'demo', PORT: String(PORT), PUBLIC_URL: base, TAPPET_DATA_DIR: dir, LOG_LEVEL: 'info' },
     stdio: 'ignore',
@@ -79,26 +87,35 @@ export async function runHttpBench(partCount = 50_000): Promise<Figure[]> {
       });
 
     const figures: Figure[] = [];
-    const report = (name: string, r: LoadResult, target?: boolean) => {
+    // The API's CPU time per answered request: steadier than throughput on a shared machine.
+    const measure = async (load: () => Promise<LoadResult>) => {
+      const before = cpuSeconds(server.pid!);
+      const result = await load();
+      return { result, cpuMsPerRequest: ((cpuSeconds(server.pid!) - before) * 1000) / Math.max(1, result.requests.total) };
+    };
+    const report = (name: string, measured: { result: LoadResult; cpuMsPerRequest: number }, target?: boolean, cpuWhat = 'per request') => {
+      const r = measured.result;
       const failed = r.errors + r.timeouts + r.non2xx;
-      const note = `${CONNECTIONS} connections, ${SECONDS} s; ${failed} failed of ${r.requests.total}`;
+      const note = `${CONNECTIONS} connections, ${SECONDS} s; ${failed} failed of ${r.requests.total}; API process CPU ${measured.cpuMsPerRequest.toFixed(3)} ms ${cpuWhat}`;
       const okRate = target ? r.requests.average >= 1500 && failed === 0 : undefined;
       figures.push(single(`${name}: throughput`, 'req/s', r.requests.average, target ? { target: '≥ 1,500 req/s', met: okRate, note } : { note }));
       figures.push(single(`${name}: latency p99`, 'ms', r.latency.p99, target ? { target: 'p99 ≤ 50 ms', met: r.latency.p99 <= 50 } : {}));
     };
 
     await autocannon({ url: `${base}/api/health`, connections: CONNECTIONS, duration: 2 }); // warm-up
-    report('HTTP: GET /api/health (ceiling)', await autocannon({ url: `${base}/api/health`, connections: CONNECTIONS, duration: SECONDS }));
+    report('HTTP: GET /api/health (ceiling)', await measure(() => autocannon({ url: `${base}/api/health`, connections: CONNECTIONS, duration: SECONDS })));
     // The shop's lookup index and lineage graph are built once per catalogue version: build them
     // before measuring, as the lookup benchmark does, so the figure is the steady state.
     const first = await fetch(`${base}${queries[0]}`, { headers: { cookie: mechanic } });
     if (!first.ok) throw new Error(`lookup failed: ${first.status}`);
     await autocannon({ url: base, connections: CONNECTIONS, duration: 2, headers: { cookie: mechanic }, requests: [{ method: 'GET', path: queries[0] }] }); // warm-up
-    report(`HTTP: authenticated lookups, ${partCount.toLocaleString('en')} parts`, await lookups(), true);
+    report(`HTTP: authenticated lookups, ${partCount.toLocaleString('en')} parts`, await measure(lookups), true);
 
+    // BENCH_HTTP_SKIP_IMPORT=1 stops here (profiling the lookups alone).
+    if (process.env.BENCH_HTTP_SKIP_IMPORT) return figures;
     // The same load while the owner's import of 50,000 new parts commits.
     const csv = partsCsv(generateParts(50_000, 777));
-    const running = lookups();
+    const running = measure(lookups);
     await new Promise((r) => setTimeout(r, 1000));
     const form = new FormData();
     form.set('kind', 'parts');
@@ -108,7 +125,7 @@ export async function runHttpBench(partCount = 50_000): Promise<Figure[]> {
     const imported = await fetch(`${base}/api/shops/${shopId}/imports`, { method: 'POST', headers: { cookie: owner, 'X-CSRF': '1', Origin: base }, body: form });
     const importSeconds = (performance.now() - importStart) / 1000;
     if (!imported.ok) throw new Error(`import during the load failed: ${imported.status} ${await imported.text()}`);
-    report('HTTP: the same lookups while a 50,000-row import commits', await running, true);
+    report('HTTP: the same lookups while a 50,000-row import commits', await running, true, "per lookup, the import's own work included");
     figures.push(single('HTTP: the import itself under that load', 's', importSeconds, { note: 'upload, check and commit' }));
     return figures;
   } finally {

@@ -2,12 +2,12 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
-import { pinoHttp } from 'pino-http';
 import pino, { type Logger } from 'pino';
 import type { DataSource } from 'typeorm';
 import type { Env } from './config/env';
 import { databaseFor } from './db/write-lock';
 import { databaseRateLimitStore } from './db/rate-limit-store';
+import { requestLog } from './http/request-log';
 import { staticRouter } from './http/static';
 import { systemClock, type Clock } from './lib/clock';
 import type { Mailer } from './lib/mailer';
@@ -173,17 +173,9 @@ export function createApp(deps: AppDeps): Express {
   app.disable('x-powered-by');
   app.set('trust proxy', env.trustProxy);
 
-  app.use(
-    pinoHttp({
-      logger,
-      // Method, path and status only: no headers (cookies), no query strings (reset tokens), no invitation tokens.
-      serializers: {
-        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, path: req.url.split('?')[0]?.replace(/^\/api\/invitations\/(?!accept$)[^/]+/, '/api/invitations/[token]') }),
-        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
-      },
-      autoLogging: { ignore: (req) => req.url === '/api/health' },
-    }),
-  );
+  // API answers are never cached (Cache-Control: no-store below), so an ETag would only cost a hash of every body.
+  app.set('etag', false);
+  app.use(requestLog(logger, (url) => url === '/api/health'));
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -243,6 +235,9 @@ export function createApp(deps: AppDeps): Express {
   api.use('/invitations', invitationsRouter({ env, staff, auth }));
   // Before every shop route: billing state brought up to date, support grants noted (and audited).
   api.use('/shops/:shopId', readOnlyPreflight(billing), support.preflight());
+  // The lookup is the busiest route (every keystroke at the counter): matched first, it skips the
+  // path tests of every router below. It answers GET /parts/search only, which none of them takes.
+  api.use('/shops/:shopId', lookupRouter({ db, lookup }));
   api.use('/shops/:shopId/billing', requireAuth, tenantContext(db), billingRouter({ billing }));
   api.use('/shops/:shopId/support-access', requireAuth, tenantContext(db), supportAccessRouter({ support }));
   api.use('/platform', platformRouter({ platform, billing }));
@@ -270,7 +265,6 @@ export function createApp(deps: AppDeps): Express {
   // Supplier barcodes (issue 7): before the catalogue router, which owns the rest of /parts/:partId.
   api.use('/shops/:shopId/parts/:partId/barcodes', requireAuth, tenantContext(db), partBarcodesRouter({ barcodes }));
   api.use('/shops/:shopId/barcodes', requireAuth, tenantContext(db), barcodeLookupRouter({ barcodes }));
-  api.use('/shops/:shopId', lookupRouter({ db, lookup }));
   api.use('/shops/:shopId', catalogueRouter({ db, catalogue, imports }));
   api.use('/shops', shopsRouter({ db, shops }));
   if (env.mode === 'test') {
