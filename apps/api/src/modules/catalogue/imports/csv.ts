@@ -1,6 +1,7 @@
 import { isUtf8 } from 'node:buffer';
 import { Readable } from 'node:stream';
 import { parse } from 'csv-parse';
+import { breathe } from '../../../lib/breathe';
 import { HttpError, badRequest } from '../../../lib/http-error';
 
 // Reading and writing CSV as spreadsheets save it: UTF-8 with or without BOM, comma or semicolon
@@ -60,6 +61,12 @@ export interface CsvRecord {
   cells: Map<string, string>;
 }
 
+/**
+ * Rows read between pauses for other requests: parsing and checking a 100,000-row file takes
+ * seconds, and the stream and its reader only queue microtasks, which starve the event loop.
+ */
+export const ROWS_PER_BREATH = 1000;
+
 export type CsvEvent = { type: 'record'; record: CsvRecord } | { type: 'error'; row: number; message: string };
 
 /**
@@ -78,6 +85,7 @@ export async function* readCsv(buffer: Buffer, columns: { known: readonly string
     // Rows are counted as a spreadsheet shows them (a cell spanning lines is still one row).
     for await (const record of parser as AsyncIterable<string[]>) {
       row++;
+      if (row % ROWS_PER_BREATH === 0) await breathe();
       if (!header) {
         header = record.map((h) => unguardCell(h.trim()).toLowerCase());
         checkHeader(header, columns);
