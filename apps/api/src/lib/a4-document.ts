@@ -89,6 +89,25 @@ export class A4Writer {
     header?.();
   }
 
+  /**
+   * A table's column heads in bold, each left-aligned at its `x` or right-aligned at it
+   * (`align: 'right'`, for figures), then a rule; returns a function that draws them again (for
+   * `breakBelow` on a new page).
+   */
+  columnHeads(heads: ReadonlyArray<{ label: string; x: number; align?: 'right' }>): () => void {
+    const draw = () => {
+      for (const h of heads) {
+        if (h.align === 'right') this.right(h.label, h.x, 9, this.bold);
+        else this.text(h.label, h.x, 9, this.bold);
+      }
+      this.down(6);
+      this.rule();
+      this.down(14);
+    };
+    draw();
+    return draw;
+  }
+
   /** The document's title line, then its date line. */
   title(title: string, dateLine: string, aside?: string | null): void {
     this.text(title, this.margin, 18, this.bold);

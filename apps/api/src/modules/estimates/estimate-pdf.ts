@@ -39,17 +39,13 @@ export async function renderEstimatePdf(input: EstimatePdfInput): Promise<Buffer
   w.text(w.fit(`Work: ${input.jobTitle}`, w.contentWidth), margin);
   w.down(26);
   const cols = { description: margin, qty: width - margin - 210, unit: width - margin - 130, tax: width - margin - 80, net: width - margin };
-  const header = () => {
-    w.text('Description', cols.description, 9, bold);
-    w.right('Qty / hours', cols.qty, 9, bold);
-    w.right('Unit price', cols.unit, 9, bold);
-    w.right('Tax', cols.tax, 9, bold);
-    w.right('Net', cols.net, 9, bold);
-    w.down(6);
-    w.rule();
-    w.down(14);
-  };
-  header();
+  const header = w.columnHeads([
+    { label: 'Description', x: cols.description },
+    { label: 'Qty / hours', x: cols.qty, align: 'right' },
+    { label: 'Unit price', x: cols.unit, align: 'right' },
+    { label: 'Tax', x: cols.tax, align: 'right' },
+    { label: 'Net', x: cols.net, align: 'right' },
+  ]);
   for (const l of input.lines) {
     w.breakBelow(margin + 120, header);
     w.text(w.fit(l.description, cols.qty - cols.description - 60), cols.description);

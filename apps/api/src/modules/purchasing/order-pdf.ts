@@ -27,18 +27,14 @@ export async function renderOrderPdf(input: OrderPdfInput): Promise<Buffer> {
   w.parties({ label: 'From', name: input.shopName, address: input.shopAddress }, { label: 'To', name: input.supplierName });
   w.down(28);
   const cols = { number: margin, supplier: margin + 95, description: margin + 190, qty: width - margin - 170, unit: width - margin - 90, total: width - margin };
-  const header = () => {
-    w.text('Our number', cols.number, 9, bold);
-    w.text('Your number', cols.supplier, 9, bold);
-    w.text('Description', cols.description, 9, bold);
-    w.right('Qty', cols.qty, 9, bold);
-    w.right('Unit price', cols.unit, 9, bold);
-    w.right('Line total', cols.total, 9, bold);
-    w.down(6);
-    w.rule();
-    w.down(14);
-  };
-  header();
+  const header = w.columnHeads([
+    { label: 'Our number', x: cols.number },
+    { label: 'Your number', x: cols.supplier },
+    { label: 'Description', x: cols.description },
+    { label: 'Qty', x: cols.qty, align: 'right' },
+    { label: 'Unit price', x: cols.unit, align: 'right' },
+    { label: 'Line total', x: cols.total, align: 'right' },
+  ]);
   for (const l of input.lines) {
     w.breakBelow(margin + 60, header);
     w.text(w.fit(l.partNumber, 90), cols.number);

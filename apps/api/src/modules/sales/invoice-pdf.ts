@@ -40,17 +40,13 @@ export async function renderInvoicePdf(input: InvoicePdfInput): Promise<Buffer> 
   w.parties({ label: 'From', name: input.shopName, address: input.shopAddress }, { label: 'To', name: input.customerName, address: input.customerAddress });
   w.down(28);
   const cols = { description: margin, qty: width - margin - 230, unit: width - margin - 160, tax: width - margin - 90, total: width - margin };
-  const header = () => {
-    w.text('Description', cols.description, 9, bold);
-    w.right('Qty', cols.qty, 9, bold);
-    w.right('Unit price', cols.unit, 9, bold);
-    w.right('Tax', cols.tax, 9, bold);
-    w.right('Net', cols.total, 9, bold);
-    w.down(6);
-    w.rule();
-    w.down(14);
-  };
-  header();
+  const header = w.columnHeads([
+    { label: 'Description', x: cols.description },
+    { label: 'Qty', x: cols.qty, align: 'right' },
+    { label: 'Unit price', x: cols.unit, align: 'right' },
+    { label: 'Tax', x: cols.tax, align: 'right' },
+    { label: 'Net', x: cols.total, align: 'right' },
+  ]);
   for (const l of input.lines) {
     w.breakBelow(margin + 140, header);
     const discount = l.discountPercent > 0 ? ` (less ${percentText(l.discountPercent)})` : '';
