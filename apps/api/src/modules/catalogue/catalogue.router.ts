@@ -1,5 +1,4 @@
 import { Router, type RequestHandler } from 'express';
-import multer from 'multer';
 import {
   fitmentIdParamsSchema,
   fitmentInputSchema,
@@ -16,7 +15,8 @@ import {
   shopIdParamsSchema,
 } from '@tappet/contracts';
 import type { Database } from '../../db/write-lock';
-import { HttpError, badRequest } from '../../lib/http-error';
+import { badRequest } from '../../lib/http-error';
+import { csvUpload } from '../uploads/upload-middleware';
 import { auditActorOf, requireAuth } from '../../middleware/authenticate';
 import { authorize, shopOf, tenantContext } from '../../middleware/tenant-context';
 import { bodyOf, validate } from '../../middleware/validate';
@@ -27,20 +27,7 @@ import { csvColumns, type ImportKind, type ImportService } from './imports/impor
 /** Largest CSV upload accepted. */
 export const maxImportBytes = 20 * 1024 * 1024;
 
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: maxImportBytes, files: 1, fields: 4, fieldSize: 1024 } }).single('file');
-
-/** multer's errors as the API's error shape: too large → 413, anything else about the form → 400. */
-const uploadFile: RequestHandler = (req, res, next) => {
-  upload(req, res, (err: unknown) => {
-    if (!err) return next();
-    if (err instanceof multer.MulterError) {
-      if (err.code === 'LIMIT_FILE_SIZE') return next(new HttpError(413, 'payload_too_large', `The file is larger than ${maxImportBytes / 1024 / 1024} MB. Split it into smaller files.`));
-      if (err.code === 'LIMIT_UNEXPECTED_FILE') return next(badRequest('Send one CSV file in the form field "file".'));
-      return next(badRequest(`The upload could not be read (${err.message}).`));
-    }
-    next(err);
-  });
-};
+const uploadFile = csvUpload({ maxFileBytes: maxImportBytes, fields: 4 });
 
 // A person or an API key: both may write the catalogue (a key with the buyer role).
 const actorOf = (req: Parameters<RequestHandler>[0]): AuditActor => {

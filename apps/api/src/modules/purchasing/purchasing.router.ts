@@ -1,5 +1,4 @@
-import { Router, type Request, type RequestHandler } from 'express';
-import multer from 'multer';
+import { Router, type Request } from 'express';
 import {
   creditInputSchema,
   listingIdParamsSchema,
@@ -25,7 +24,8 @@ import {
   type PurchaseOrderStatus,
 } from '@tappet/contracts';
 import { subjectOf } from '@tappet/permissions';
-import { HttpError, badRequest } from '../../lib/http-error';
+import { badRequest } from '../../lib/http-error';
+import { csvUpload } from '../uploads/upload-middleware';
 import { auditActorOf } from '../../middleware/authenticate';
 import { authorize, shopOf } from '../../middleware/tenant-context';
 import { bodyOf, validate } from '../../middleware/validate';
@@ -37,17 +37,7 @@ import type { SuppliersService } from './suppliers.service';
 
 /** Largest listings CSV accepted. */
 const maxImportBytes = 10 * 1024 * 1024;
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: maxImportBytes, files: 1, fields: 2, fieldSize: 1024 } }).single('file');
-const uploadFile: RequestHandler = (req, res, next) => {
-  upload(req, res, (err: unknown) => {
-    if (!err) return next();
-    if (err instanceof multer.MulterError) {
-      if (err.code === 'LIMIT_FILE_SIZE') return next(new HttpError(413, 'payload_too_large', 'The file is larger than 10 MB. Split it into smaller files.'));
-      return next(badRequest(`The upload could not be read (${err.message}).`));
-    }
-    next(err);
-  });
-};
+const uploadFile = csvUpload({ maxFileBytes: maxImportBytes, fields: 2 });
 
 const shopIdOf = (req: Request) => shopOf(req).shop.id;
 const param = (req: Request, name: string) => req.params[name] as string;

@@ -44,3 +44,23 @@ export function memoryUpload(field: string, limits: UploadLimits): RequestHandle
     });
   };
 }
+
+/**
+ * Reads one CSV file, in form field "file", into memory beside at most `fields` small form
+ * fields (kind, mode). Too large is 413; any other problem with the form is 400, with a message
+ * for people. Used by the catalogue and supplier-listing imports.
+ */
+export function csvUpload(limits: { maxFileBytes: number; fields: number }): RequestHandler {
+  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: limits.maxFileBytes, files: 1, fields: limits.fields, fieldSize: 1024 } }).single('file');
+  return (req, res, next) => {
+    upload(req, res, (err: unknown) => {
+      if (!err) return next();
+      if (err instanceof multer.MulterError) {
+        if (err.code === 'LIMIT_FILE_SIZE') return next(new HttpError(413, 'payload_too_large', `The file is larger than ${mb(limits.maxFileBytes)}. Split it into smaller files.`));
+        if (err.code === 'LIMIT_UNEXPECTED_FILE' || err.code === 'LIMIT_FILE_COUNT') return next(badRequest('Send one CSV file in the form field "file".'));
+        return next(badRequest(`The upload could not be read (${err.message}).`));
+      }
+      next(err);
+    });
+  };
+}
