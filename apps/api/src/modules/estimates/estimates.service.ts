@@ -177,11 +177,11 @@ export function createEstimatesService(deps: { db: Database; clock: Clock; maile
   }
 
   async function view(manager: EntityManager, shopId: string, row: EstimateRow): Promise<Estimate> {
-    const [job, lines, link] = await Promise.all([
-      jobOf(manager, shopId, row.jobId),
-      manager.find(EstimateLineEntity, { where: { shopId, estimateId: row.id }, order: { position: 'ASC' } }),
-      manager.findOne(EstimateLinkEntity, { where: { shopId, estimateId: row.id }, order: { createdAt: 'DESC' } }),
-    ]);
+    // One after another: inside a write on PostgreSQL they share one client, which must not run
+    // two queries at once (pg warns now and will refuse in its next major version).
+    const job = await jobOf(manager, shopId, row.jobId);
+    const lines = await manager.find(EstimateLineEntity, { where: { shopId, estimateId: row.id }, order: { position: 'ASC' } });
+    const link = await manager.findOne(EstimateLinkEntity, { where: { shopId, estimateId: row.id }, order: { createdAt: 'DESC' } });
     const vehicle = await shopScoped(manager, VehicleEntity, shopId).findOne({ id: job.vehicleId });
     const customer = row.customerId ? await shopScoped(manager, CustomerEntity, shopId).findOne({ id: row.customerId }) : null;
     const partIds = lines.filter((l) => l.partId).map((l) => l.partId!);

@@ -1,5 +1,6 @@
 import { Readable } from 'node:stream';
 import yazl from 'yazl';
+import { liveTables } from '../../db/live-tables';
 import type { Database } from '../../db/write-lock';
 import type { Clock } from '../../lib/clock';
 import { recordAudit, type AuditActor } from '../audit/audit.service';
@@ -25,19 +26,10 @@ export interface ExportTable {
  * added by later migrations are exported without a change here.
  */
 export async function shopOwnedTables(db: Database): Promise<ExportTable[]> {
-  const runner = db.dataSource.createQueryRunner();
-  try {
-    const tables = await runner.getTables();
-    return tables
-      .filter((t) => t.columns.some((c) => c.name === 'shop_id'))
-      .map((t) => {
-        const primary = t.columns.filter((c) => c.isPrimary).map((c) => c.name);
-        return { name: t.name, columns: t.columns.map((c) => c.name).filter((c) => !isSecretColumn(c)), keyColumn: primary.length === 1 ? (primary[0] ?? null) : null };
-      })
-      .sort((a, b) => a.name.localeCompare(b.name));
-  } finally {
-    await runner.release();
-  }
+  return (await liveTables(db.dataSource))
+    .filter((t) => t.columns.includes('shop_id'))
+    .map((t) => ({ name: t.name, columns: t.columns.filter((c) => !isSecretColumn(c)), keyColumn: t.primary.length === 1 ? (t.primary[0] ?? null) : null }))
+    .sort((a, b) => a.name.localeCompare(b.name));
 }
 
 /** CSV of one table's rows for one shop, read `pageSize` rows at a time. */
