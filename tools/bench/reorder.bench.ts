@@ -1,6 +1,7 @@
 // The reorder list (issue 14): generated shops with 10k, 50k and 200k stocked parts and two years of
 // movements, each in a fresh process (reorder-child.ts) so one size's memory and database do not
-// weigh on the next. Target at 50k parts: ≤ 3 s.
+// weigh on the next. Target at 50k parts: ≤ 3 s. REORDER_BENCH_SIZES=50000 (comma-separated) runs
+// only those sizes, to iterate on one.
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { single, summarise, type Figure } from './harness';
@@ -8,7 +9,9 @@ import { single, summarise, type Figure } from './harness';
 const child = fileURLToPath(new URL('./reorder-child.ts', import.meta.url));
 const tsx = fileURLToPath(new URL('../../node_modules/.bin/tsx', import.meta.url));
 
-export function runReorderBench(sizes = [10_000, 50_000, 200_000], runs = 3): Figure[] {
+const sizesFromEnv = process.env['REORDER_BENCH_SIZES']?.split(',').map(Number);
+
+export function runReorderBench(sizes = sizesFromEnv ?? [10_000, 50_000, 200_000], runs = 3): Figure[] {
   const figures: Figure[] = [];
   for (const parts of sizes) {
     const run = spawnSync(tsx, [child, String(parts), String(runs)], { encoding: 'utf8', maxBuffer: 16 * 2 ** 20 });

@@ -23,6 +23,7 @@ import { purchasingEntities } from '../modules/purchasing/purchasing.entity';
 import { Jobs1765500000000 } from './migrations/1765500000000-jobs';
 import { PurchaseSpecialOrders1766000000000 } from './migrations/1766000000000-purchase-special-orders';
 import { SharedState1766100000000 } from './migrations/1766100000000-shared-state';
+import { StockMovementsByKind1766200000000 } from './migrations/1766200000000-stock-movements-by-kind';
 import { jobEntities } from '../modules/jobs/jobs.entity';
 import { StockCounts1765600000000 } from './migrations/1765600000000-stock-counts';
 import { countEntities } from '../modules/counts/counts.entity';
@@ -46,7 +47,7 @@ export interface SqliteHandle {
 export const entities = [UserEntity, ShopEntity, MembershipEntity, SessionEntity, PasswordResetTokenEntity, AuditEventEntity, ...catalogueEntities, InvitationEntity, ApiKeyEntity, ShopSettingsEntity, CustomerEntity, ...vehicleEntities, ...billingEntities, ...stockEntities, ...purchasingEntities, ...jobEntities, ...salesEntities, ...countEntities, ...barcodeEntities, ...estimateEntities, ...consignmentEntities];
 
 /** Committed migrations, in order. Passed as classes: globs do not survive bundling or tsx. */
-export const migrations = [InitialSchema1764633600000, Catalogue1764720000000, ShopAdministration1764806400000, PartSearch1764900000000, Stock1765000000000, Vehicles1765100000000, Billing1765200000000, Purchasing1765400000000, Jobs1765500000000, StockCounts1765600000000, Sales1765700000000, EstimatesAndConsignment1765800000000, PurchaseSpecialOrders1766000000000, SharedState1766100000000];
+export const migrations = [InitialSchema1764633600000, Catalogue1764720000000, ShopAdministration1764806400000, PartSearch1764900000000, Stock1765000000000, Vehicles1765100000000, Billing1765200000000, Purchasing1765400000000, Jobs1765500000000, StockCounts1765600000000, Sales1765700000000, EstimatesAndConsignment1765800000000, PurchaseSpecialOrders1766000000000, SharedState1766100000000, StockMovementsByKind1766200000000];
 
 /**
  * Pragmas set on every connection. Set here rather than through `enableWAL` so that

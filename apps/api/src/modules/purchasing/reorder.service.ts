@@ -22,14 +22,28 @@ const parseSqlDate = (s: string | Date) => (s instanceof Date ? s : new Date(`${
 /** What the reorder list needs of a part. */
 type PartBrief = Pick<PartRow, 'id' | 'number' | 'description' | 'status'>;
 
+/**
+ * Demand on the days of the window that had any, in day order (day 0 is the window's first day).
+ * Most parts are issued on a few days a year, so this is far smaller than one number per day.
+ */
+interface DayQuantities {
+  days: number[];
+  quantities: number[];
+}
+
 interface Feed {
   partId: string;
   number: string;
-  /** Daily demand for the current part that arrived under this number, in current-part units. */
-  daily: number[];
+  /** Demand for the current part that arrived under this number, in current-part units. */
+  demand: DayQuantities;
+  /** Sum of `demand`, in day order. */
+  total: number;
   /** Current-part units per unit of this number. */
   ratio: number;
 }
+
+/** What the reorder list needs of a supplier listing. */
+type ReorderListing = Pick<ListingRow, 'id' | 'supplierId' | 'partId' | 'priceMinor' | 'packSize' | 'minOrderQty' | 'leadTimeDays' | 'lastPaidUnitMinor'>;
 
 /**
  * The reorder list: demand history from the stock ledger (issues net of job returns; days without
@@ -39,7 +53,7 @@ interface Feed {
 export function createReorderService(deps: { db: Database; clock: Clock; catalogue: CatalogueService; suppliers: SuppliersService; orders: OrdersService }) {
   const { db, clock, catalogue, suppliers, orders } = deps;
 
-  async function list(shopId: string): Promise<ReorderListResponse & { suggestionListings: Map<string, ListingRow> }> {
+  async function list(shopId: string): Promise<ReorderListResponse> {
     const now = clock.now();
     const shopSettings = await db.reader.findOne(ShopSettingsEntity, { where: { shopId } });
     const serviceLevel = shopSettings ? shopSettings.serviceLevelMilli / 1000 : defaultShopSettings.serviceLevel;
@@ -60,16 +74,7 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
        GROUP BY part_id, substr(occurred_at, 1, 10)`,
       [shopId, sqlDate(new Date(start)), sqlDate(now)],
     );
-    const issuedDaily = new Map<string, number[]>();
-    for (const m of movements) {
-      const day = Math.round((Date.parse(`${m.day}T00:00:00Z`) - start) / DAY);
-      if (day < 0 || day >= window) continue;
-      let days = issuedDaily.get(m.partId);
-      if (!days) issuedDaily.set(m.partId, (days = new Array<number>(window).fill(0)));
-      // Issues are negative deltas; returns from jobs (positive) are netted on the day they come back.
-      days[day]! += -Number(m.delta);
-    }
-    for (const days of issuedDaily.values()) for (let i = 0; i < days.length; i++) days[i] = Math.max(0, days[i]!);
+    const issuedDaily = issuedByDay(movements, start, window);
 
     // Only the columns used, without entity hydration: over a whole catalogue that costs more than the query.
     const parts = new Map(
@@ -77,14 +82,15 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
     );
     const graph = await catalogue.graphOf(shopId);
     const feeds = new Map<string, Map<string, Feed>>();
-    for (const [issuedId, days] of issuedDaily) {
+    for (const [issuedId, demand] of issuedDaily) {
       const issued = parts.get(issuedId);
       if (!issued || !graph.hasPart(issuedId)) continue;
       for (const current of graph.currentParts(issuedId).current) {
         let byFeeder = feeds.get(current.partId);
         if (!byFeeder) feeds.set(current.partId, (byFeeder = new Map()));
         // Feeds are only read, so one unit per unit can share the issued days instead of copying them.
-        byFeeder.set(issuedId, { partId: issuedId, number: issued.number, daily: current.quantity === 1 ? days : days.map((d) => d * current.quantity), ratio: current.quantity });
+        const scaled = current.quantity === 1 ? demand : { days: demand.days, quantities: demand.quantities.map((q) => q * current.quantity) };
+        byFeeder.set(issuedId, { partId: issuedId, number: issued.number, demand: scaled, total: sumOf(scaled), ratio: current.quantity });
       }
     }
 
@@ -109,18 +115,24 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
     );
     const manual = new Map((await db.reader.find(PartPurchasingEntity, { where: { shopId } })).map((r) => [r.partId, r]));
     const supplierRows = new Map((await db.reader.find(SupplierEntity, { where: { shopId } })).map((s) => [s.id, s]));
-    const listingsByPart = new Map<string, ListingRow[]>();
-    for (const l of await listingsOf(shopId)) listingsByPart.set(l.partId, [...(listingsByPart.get(l.partId) ?? []), l]);
+    const listingsByPart = new Map<string, ReorderListing[]>();
+    for (const l of await listingsOf(shopId)) {
+      const listings = listingsByPart.get(l.partId);
+      if (listings) listings.push(l);
+      else listingsByPart.set(l.partId, [l]);
+    }
 
     const candidates = new Set<string>([...feeds.keys(), ...[...manual.values()].filter((m) => m.minQty !== null).map((m) => m.partId)]);
     const suggestions: ReorderSuggestion[] = [];
-    const suggestionListings = new Map<string, ListingRow>();
+    const dates = Array.from({ length: window }, (_, i) => new Date(start + i * DAY).toISOString().slice(0, 10));
+    // One day-by-day buffer for every candidate: a fresh array each was most of the list's garbage.
+    const daily = new Array<number>(window).fill(0);
     for (const partId of candidates) {
       const part = parts.get(partId);
       if (!part || part.status === 'nla') continue;
       const byFeeder = feeds.get(partId) ?? new Map<string, Feed>();
-      const daily = new Array<number>(window).fill(0);
-      for (const f of byFeeder.values()) f.daily.forEach((d, i) => (daily[i]! += d));
+      daily.fill(0);
+      for (const f of byFeeder.values()) for (let k = 0; k < f.demand.days.length; k++) daily[f.demand.days[k]!]! += f.demand.quantities[k]!;
       const stats = demandStats(daily);
 
       const choice = chooseListing(listingsByPart.get(partId) ?? [], manual.get(partId)?.preferredSupplierId ?? null, supplierRows);
@@ -145,7 +157,7 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
         if (f.partId === partId || full.has(f.partId)) continue;
         oneWay.add(f.partId);
         const stock = free.get(f.partId) ?? 0;
-        const ownMean = f.daily.reduce((s, d) => s + d, 0) / window;
+        const ownMean = f.total / window;
         if (stock > 0) subs.push({ free: stock, unitsPerDemandUnit: 1 / f.ratio, scope: 'own_demand_only', ownDemand: ownMean * leadTimeDays });
       }
       const substitutes = substituteSupply(subs);
@@ -175,7 +187,6 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
       const older = [...byFeeder.values()].filter((f) => f.partId !== partId);
       if (older.length > 0) reasons.unshift(`Demand includes issues under ${older.map((f) => `${f.number}${f.ratio !== 1 ? ` (×${round2(f.ratio)})` : ''}`).join(', ')}, which resolve to ${part.number}.`);
       if (!supplier) reasons.push('No supplier lists this part: add a listing to order it.');
-      if (choice) suggestionListings.set(partId, choice);
       suggestions.push({
         partId,
         partNumber: part.number,
@@ -189,7 +200,7 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
           total: round2(daily.reduce((s, d) => s + d, 0)),
           meanPerDay: stats.mean,
           sdPerDay: stats.standardDeviation,
-          fedBy: [...byFeeder.values()].map((f) => ({ partId: f.partId, number: f.number, quantity: round2(f.daily.reduce((s, d) => s + d, 0)), ownDemandOnly: oneWay.has(f.partId) })),
+          fedBy: [...byFeeder.values()].map((f) => ({ partId: f.partId, number: f.number, quantity: round2(f.total), ownDemandOnly: oneWay.has(f.partId) })),
         },
         leadTime: { days: leadTimeDays, sdDays: sdLeadTimeDays },
         serviceLevel,
@@ -207,7 +218,7 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
         valueMinor: choice ? choice.priceMinor * decision.quantity : null,
         currency: supplier?.currency ?? null,
         reasons,
-        history: historyOf(byFeeder, start, window),
+        history: historyOf(byFeeder, dates),
       });
     }
     suggestions.sort((a, b) => (a.supplierName ?? '\uffff').localeCompare(b.supplierName ?? '\uffff') || a.partNumber.localeCompare(b.partNumber));
@@ -266,23 +277,21 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
       specialOrders,
       groups: [...groups.values()],
       ...health,
-      suggestionListings,
     };
   }
 
-  /** Every listing of the shop, read without entity hydration (a listing per part or more: it adds up). */
-  async function listingsOf(shopId: string): Promise<ListingRow[]> {
-    const rows = await db.reader.query<Array<Omit<ListingRow, 'lastPaidAt' | 'createdAt' | 'updatedAt'> & { lastPaidAt: string | null; createdAt: string; updatedAt: string }>>(
-      `SELECT id, shop_id AS shopId, supplier_id AS supplierId, part_id AS partId, supplier_number AS supplierNumber, price_minor AS priceMinor, pack_size AS packSize,
-         min_order_qty AS minOrderQty, lead_time_days AS leadTimeDays, last_paid_unit_minor AS lastPaidUnitMinor, last_paid_at AS lastPaidAt, created_at AS createdAt, updated_at AS updatedAt
+  /** Every listing of the shop, only the columns used and without entity hydration (a listing per part or more: it adds up). */
+  async function listingsOf(shopId: string): Promise<ReorderListing[]> {
+    return db.reader.query<ReorderListing[]>(
+      `SELECT id, supplier_id AS supplierId, part_id AS partId, price_minor AS priceMinor, pack_size AS packSize, min_order_qty AS minOrderQty,
+         lead_time_days AS leadTimeDays, last_paid_unit_minor AS lastPaidUnitMinor
        FROM supplier_listings WHERE shop_id = ?`,
       [shopId],
     );
-    return rows.map((r) => ({ ...r, lastPaidAt: r.lastPaidAt === null ? null : parseSqlDate(r.lastPaidAt), createdAt: parseSqlDate(r.createdAt), updatedAt: parseSqlDate(r.updatedAt) }));
   }
 
   /** Dead stock: on hand, not issued for `deadStockDays` (or never); slow movers: on hand for more than a year of the window's demand. */
-  async function stockHealth(shopId: string, parts: Map<string, PartBrief>, pools: Map<string, { quantity: number; value: number }>, issuedDaily: Map<string, number[]>, now: Date, window: number, deadStockDays: number) {
+  async function stockHealth(shopId: string, parts: Map<string, PartBrief>, pools: Map<string, { quantity: number; value: number }>, issuedDaily: Map<string, DayQuantities>, now: Date, window: number, deadStockDays: number) {
     const last = new Map(
       (await db.reader.query<Array<{ partId: string; at: string }>>(`SELECT part_id AS partId, MAX(occurred_at) AS at FROM stock_movements WHERE shop_id = ? AND kind = 'issued' GROUP BY part_id`, [shopId])).map((r) => [r.partId, parseSqlDate(r.at)]),
     );
@@ -292,7 +301,8 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
       const part = parts.get(partId);
       if (!part || pool.quantity <= 0) continue;
       const lastIssuedAt = last.get(partId) ?? null;
-      const issued = (issuedDaily.get(partId) ?? []).reduce((s, d) => s + d, 0);
+      const demand = issuedDaily.get(partId);
+      const issued = demand ? sumOf(demand) : 0;
       const row = { partId, partNumber: part.number, description: part.description, onHand: pool.quantity, valueMinor: pool.value, lastIssuedAt: lastIssuedAt?.toISOString() ?? null, issuedInWindow: issued };
       if (!lastIssuedAt || now.getTime() - lastIssuedAt.getTime() > deadStockDays * DAY) deadStock.push(row);
       else if (issued === 0 || pool.quantity / (issued / window) > 365) slowMovers.push(row);
@@ -302,10 +312,7 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
   }
 
   return {
-    async list(shopId: string): Promise<ReorderListResponse> {
-      const { suggestionListings: _l, ...response } = await list(shopId);
-      return response;
-    },
+    list,
 
     /**
      * Turns suggestions (and jobs' special orders) into draft orders, one per supplier, at the
@@ -369,20 +376,63 @@ export function createReorderService(deps: { db: Database; clock: Clock; catalog
 const round2 = (n: number) => Math.round(n * 100) / 100;
 
 /** The preferred supplier's listing, else the cheapest listing of an active supplier (ties by name). */
-function chooseListing(listings: ListingRow[], preferredSupplierId: string | null, suppliers: Map<string, SupplierRow>): ListingRow | null {
+function chooseListing(listings: ReorderListing[], preferredSupplierId: string | null, suppliers: Map<string, SupplierRow>): ReorderListing | null {
   const usable = listings.filter((l) => suppliers.get(l.supplierId)?.active);
   const preferred = usable.find((l) => l.supplierId === preferredSupplierId);
   if (preferred) return preferred;
   return usable.sort((a, b) => a.priceMinor - b.priceMinor || suppliers.get(a.supplierId)!.name.localeCompare(suppliers.get(b.supplierId)!.name))[0] ?? null;
 }
 
+/**
+ * Issues net of job returns per part and day of the window, from the ledger's per-part-and-day sums
+ * (days with net returns count as 0). Every part with a movement in the window has an entry, even
+ * if all its days net to 0: it is still a reorder candidate.
+ */
+function issuedByDay(rows: Array<{ partId: string; day: string; delta: number }>, start: number, window: number): Map<string, DayQuantities> {
+  const byPart = new Map<string, DayQuantities>();
+  for (const row of rows) {
+    const day = Math.round((Date.parse(`${row.day}T00:00:00Z`) - start) / DAY);
+    if (day < 0 || day >= window) continue;
+    let demand = byPart.get(row.partId);
+    if (!demand) byPart.set(row.partId, (demand = { days: [], quantities: [] }));
+    demand.days.push(day);
+    // Issues are negative deltas; returns from jobs (positive) are netted on the day they come back.
+    demand.quantities.push(-Number(row.delta));
+  }
+  for (const [partId, demand] of byPart) byPart.set(partId, inDayOrder(demand));
+  return byPart;
+}
+
+/** Sorted by day (rows come in no promised order), a day's quantities summed, days of 0 or less left out. */
+function inDayOrder(demand: DayQuantities): DayQuantities {
+  const order = demand.days.map((_, k) => k).sort((a, b) => demand.days[a]! - demand.days[b]!);
+  const out: DayQuantities = { days: [], quantities: [] };
+  for (let k = 0; k < order.length; ) {
+    const day = demand.days[order[k]!]!;
+    let quantity = 0;
+    for (; k < order.length && demand.days[order[k]!] === day; k++) quantity += demand.quantities[order[k]!]!;
+    if (quantity > 0) {
+      out.days.push(day);
+      out.quantities.push(quantity);
+    }
+  }
+  return out;
+}
+
+/** Total demand, summed in day order (as a day-by-day sum would, so the figures do not drift). */
+function sumOf(demand: DayQuantities): number {
+  let total = 0;
+  for (const q of demand.quantities) total += q;
+  return total;
+}
+
 /** Days with demand, split by the number issued under (the chart stacks them). */
-function historyOf(byFeeder: Map<string, Feed>, start: number, window: number): ReorderSuggestion['history'] {
-  const out: ReorderSuggestion['history'] = [];
-  for (let i = 0; i < window; i++) {
-    const byNumber: Record<string, number> = {};
-    for (const f of byFeeder.values()) if (f.daily[i]! > 0) byNumber[f.number] = round2(f.daily[i]!);
-    out.push({ date: new Date(start + i * DAY).toISOString().slice(0, 10), byNumber });
+function historyOf(byFeeder: Map<string, Feed>, dates: string[]): ReorderSuggestion['history'] {
+  const out: ReorderSuggestion['history'] = dates.map((date) => ({ date, byNumber: {} }));
+  // Feeder by feeder, so each day's numbers keep the feeders' order.
+  for (const f of byFeeder.values()) {
+    const { days, quantities } = f.demand;
+    for (let k = 0; k < days.length; k++) if (quantities[k]! > 0) out[days[k]!]!.byNumber[f.number] = round2(quantities[k]!);
   }
   return out;
 }

@@ -13,6 +13,7 @@ import { Sales1765700000000Pg } from './1765700000000-sales';
 import { EstimatesAndConsignment1765800000000Pg } from './1765800000000-estimates-and-consignment';
 import { PurchaseSpecialOrders1766000000000Pg } from './1766000000000-purchase-special-orders';
 import { SharedState1766100000000Pg } from './1766100000000-shared-state';
+import { StockMovementsByKind1766200000000Pg } from './1766200000000-stock-movements-by-kind';
 
 /** Committed PostgreSQL migrations, in order. */
-export const postgresMigrations = [InitialSchema1764633600000Pg, Catalogue1764720000000Pg, ShopAdministration1764806400000Pg, PartSearch1764900000000Pg, Stock1765000000000Pg, Vehicles1765100000000Pg, Billing1765200000000Pg, Purchasing1765400000000Pg, Jobs1765500000000Pg, StockCounts1765600000000Pg, Sales1765700000000Pg, EstimatesAndConsignment1765800000000Pg, PurchaseSpecialOrders1766000000000Pg, SharedState1766100000000Pg];
+export const postgresMigrations = [InitialSchema1764633600000Pg, Catalogue1764720000000Pg, ShopAdministration1764806400000Pg, PartSearch1764900000000Pg, Stock1765000000000Pg, Vehicles1765100000000Pg, Billing1765200000000Pg, Purchasing1765400000000Pg, Jobs1765500000000Pg, StockCounts1765600000000Pg, Sales1765700000000Pg, EstimatesAndConsignment1765800000000Pg, PurchaseSpecialOrders1766000000000Pg, SharedState1766100000000Pg, StockMovementsByKind1766200000000Pg];
