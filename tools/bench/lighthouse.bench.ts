@@ -62,6 +62,11 @@ export async function runLighthouseBench(): Promise<Figure[]> {
         let result = await lighthouse(page.url, { port: chrome.port, output: 'json', logLevel: 'error', onlyCategories: ['performance', 'accessibility'], extraHeaders: { Cookie: cookie } }, config);
         if (result?.lhr.runtimeError) result = await lighthouse(page.url, { port: chrome.port, output: 'json', logLevel: 'error', onlyCategories: ['performance', 'accessibility'], extraHeaders: { Cookie: cookie } }, config);
         if (!result) throw new Error(`Lighthouse gave no result for ${page.url}`);
+        // LIGHTHOUSE_REPORT_DIR=… keeps each full report (LCP element, request chains, long tasks) for study.
+        if (process.env.LIGHTHOUSE_REPORT_DIR) {
+          fs.mkdirSync(process.env.LIGHTHOUSE_REPORT_DIR, { recursive: true });
+          fs.writeFileSync(path.join(process.env.LIGHTHOUSE_REPORT_DIR, `${page.name.replace(/\W+/g, '-')}-${preset}.json`), JSON.stringify(result.lhr));
+        }
         const { performance, accessibility } = result.lhr.categories;
         const perf = Math.round((performance?.score ?? 0) * 100);
         const a11y = Math.round((accessibility?.score ?? 0) * 100);

@@ -1,19 +1,10 @@
 import { z } from 'zod';
 import { idSchema } from './common';
 
-/** Tappet's own billing states (mapped from Stripe's subscription status). */
-export const billingStates = ['trial', 'active', 'past_due', 'suspended', 'cancelled'] as const;
-export const billingStateSchema = z.enum(billingStates);
-export type BillingStateName = z.infer<typeof billingStateSchema>;
+import { billingStates } from './constants/billing';
 
-/** Words shown for each state. */
-export const billingStateLabels: Record<BillingStateName, string> = {
-  trial: 'Trial',
-  active: 'Active',
-  past_due: 'Payment overdue',
-  suspended: 'Suspended',
-  cancelled: 'Cancelled',
-};
+export * from './constants/billing';
+export const billingStateSchema = z.enum(billingStates);
 
 /** A limit: a whole number, or null for "no limit". */
 const limitSchema = z.number().int().min(0).max(10_000_000).nullable();

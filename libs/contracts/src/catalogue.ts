@@ -1,22 +1,17 @@
 import { z } from 'zod';
 import { idSchema } from './common';
+import { interchanges, linkKinds, partOrigins, partStatuses } from './constants/catalogue';
+
+export * from './constants/catalogue';
 
 // The catalogue: parts, the links between their numbers, and what they fit (issue 4).
 
-export const partOrigins = ['genuine', 'reproduction', 'pattern'] as const;
 export const partOriginSchema = z.enum(partOrigins, { error: 'Use genuine, reproduction or pattern.' });
-export type PartOrigin = z.infer<typeof partOriginSchema>;
 
-/** `nla`: no longer available from anyone. */
-export const partStatuses = ['available', 'nla'] as const;
 export const partStatusSchema = z.enum(partStatuses, { error: 'Use available, or nla for no longer available.' });
-export type PartStatusValue = z.infer<typeof partStatusSchema>;
 
-export const linkKinds = ['replaced_by', 'kit_contains', 'equivalent'] as const;
 export const linkKindSchema = z.enum(linkKinds, { error: 'Use replaced_by, kit_contains or equivalent.' });
 
-/** For `equivalent` only `both` and `one_way` apply; `one_way` means the `to` part stands in for the `from` part. */
-export const interchanges = ['both', 'one_way', 'with_changes'] as const;
 export const interchangeSchema = z.enum(interchanges, { error: 'Use both, one_way or with_changes.' });
 
 const text = (max: number, label: string) => z.string().trim().max(max, `${label} has at most ${max} characters.`);

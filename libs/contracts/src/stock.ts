@@ -1,23 +1,13 @@
 import { z } from 'zod';
 import { idSchema } from './common';
 import { partOriginSchema } from './catalogue';
+import { stockConditions } from './constants/stock';
+
+export * from './constants/stock';
 
 // Stock (issue 6): bins, the append-only movement ledger, holds, serialised items and valuation.
 
-/** Condition belongs to the stock line: one genuine number can sit on the shelf as NOS and as used. */
-export const stockConditions = ['new', 'nos', 'used_good', 'used_fair', 'reconditioned', 'core'] as const;
 export const stockConditionSchema = z.enum(stockConditions, { error: 'Use new, nos, used_good, used_fair, reconditioned or core.' });
-export type StockCondition = z.infer<typeof stockConditionSchema>;
-
-/** Words for people. */
-export const stockConditionLabels: Record<StockCondition, string> = {
-  new: 'New',
-  nos: 'New old stock',
-  used_good: 'Used, good',
-  used_fair: 'Used, fair',
-  reconditioned: 'Reconditioned',
-  core: 'Core (for exchange)',
-};
 
 export const movementKinds = ['received', 'issued', 'returned', 'adjusted', 'moved', 'counted'] as const;
 export const movementKindSchema = z.enum(movementKinds);

@@ -77,9 +77,15 @@ export interface RequestOptions<T> {
   /**
    * Checks the response body; a mismatch is reported as an error instead of a wrong screen. A
    * function loads the schema (and zod) on demand, in parallel with the request: for the calls
-   * the first screen makes (docs/decisions/022-first-load.md).
+   * the first screen makes (docs/decisions/022-first-load.md). A hand-written check with the
+   * same `safeParse` serves where even loading zod is too late (lib/me-schema.ts).
    */
-  schema?: z.ZodType<T> | (() => Promise<z.ZodType<T>>);
+  schema?: z.ZodType<T> | ResponseCheck<T> | (() => Promise<z.ZodType<T>>);
+}
+
+/** What the client needs of a schema: zod's `safeParse` shape. */
+export interface ResponseCheck<T> {
+  safeParse(data: unknown): { success: true; data: T } | { success: false };
 }
 
 /**

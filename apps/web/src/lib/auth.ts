@@ -1,12 +1,11 @@
 import type { MeWithActiveShop } from '@tappet/contracts';
 import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
 import { ApiError, api } from './api-client';
+import { meSchema } from './me-schema';
 
-/**
- * /api/me's schema, loaded on demand: /api/me is the first request of every screen, and the
- * schema would otherwise bring zod into the first download (docs/decisions/022-first-load.md).
- */
-export const meSchema = () => import('./me-schema').then((m) => m.meSchema);
+/** /api/me's check: by hand, so the first screen does not wait for zod (docs/decisions/024-mobile-first-load.md). */
+export { meSchema };
+
 /** /api/me: the person, their memberships and the session's active shop. */
 export type Me = MeWithActiveShop;
 export type MembershipView = Me['memberships'][number];

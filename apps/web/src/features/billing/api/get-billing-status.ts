@@ -5,7 +5,7 @@ import { billingKeys } from './keys';
 
 /** GET /api/shops/:shopId/billing/status: the state and read-only reason (every member). */
 export function getBillingStatus(shopId: string, signal?: AbortSignal): Promise<BillingStatus> {
-  return api.get(`/shops/${encodeURIComponent(shopId)}/billing/status`, { schema: () => import('./status-schema').then((m) => m.billingStatusSchema), signal });
+  return api.get(`/shops/${encodeURIComponent(shopId)}/billing/status`, { schema: () => import('./schemas').then((m) => m.billingStatusSchema), signal });
 }
 
 export function billingStatusQueryOptions(shopId: string) {

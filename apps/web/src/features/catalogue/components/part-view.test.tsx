@@ -92,7 +92,7 @@ describe('the part page', () => {
     );
     renderApp(`/shops/${shopA}/catalogue/${ids.old}`);
     await user.click(await screen.findByRole('button', { name: 'Add link' }, slow));
-    const dialog = screen.getByRole('dialog', { name: 'Link 71-3456 to another part' });
+    const dialog = await screen.findByRole('dialog', { name: 'Link 71-3456 to another part' }, slow);
     await user.selectOptions(within(dialog).getByLabelText('Kind of link'), 'equivalent');
     // An equivalent is both ways or one way, never "with changes".
     expect(within(within(dialog).getByLabelText('Interchange')).queryByRole('option', { name: 'fits with changes' })).not.toBeInTheDocument();
@@ -132,7 +132,7 @@ describe('the part page', () => {
     );
     renderApp(`/shops/${shopA}/catalogue/${ids.old}`);
     await user.click(await screen.findByRole('button', { name: 'Add fitment' }, slow));
-    const dialog = screen.getByRole('dialog', { name: 'What does 71-3456 fit?' });
+    const dialog = await screen.findByRole('dialog', { name: 'What does 71-3456 fit?' }, slow);
     await user.type(within(dialog).getByLabelText('Marque'), 'Ferncastle');
     await user.type(within(dialog).getByLabelText('Model'), 'Merlin 500');
     await user.type(within(dialog).getByLabelText('First year'), '1972');
@@ -147,7 +147,7 @@ describe('the part page', () => {
     expect(requests.find((r) => r.method === 'POST')?.body).toEqual({ partId: ids.old, marque: 'Ferncastle', model: 'Merlin 500', yearFrom: 1972, yearTo: 1975, frameFrom: null, frameTo: null });
 
     await user.click(screen.getByRole('button', { name: 'Edit part' }));
-    const edit = screen.getByRole('dialog', { name: 'Edit 71-3456' });
+    const edit = await screen.findByRole('dialog', { name: 'Edit 71-3456' }, slow);
     expect(within(edit).getByLabelText('Supplier numbers')).toHaveValue('HX 220-14');
     expect(within(edit).getByLabelText('Status')).toHaveValue('nla');
     await user.clear(within(edit).getByLabelText('Description'));

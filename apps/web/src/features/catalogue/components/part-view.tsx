@@ -1,19 +1,16 @@
 import type { Fitment, LineageGraphResponse, PartDetailResponse, PartLink } from '@tappet/contracts';
 import { Button, ConfirmDialog, ErrorState, IconAdvise, IconOk, LoadingState, PartNumber, useToast } from '@tappet/ui';
-import { useState, type ReactNode } from 'react';
+import { lazy, Suspense, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { errorMessage } from '../../../lib/api-client';
 import { useDeleteFitment } from '../api/delete-fitment';
 import { useDeleteLink } from '../api/delete-link';
-import { FitmentFormDialog } from './fitment-form-dialog';
 import { FitmentsTable } from './fitments-table';
 import { LineageList } from './lineage-list';
 import { LineagePicture } from './lineage-picture';
-import { LinkFormDialog } from './link-form-dialog';
 import { LinksTable } from './links-table';
 import { PartStatusPill } from './part-badges';
-import { PartFormDialog } from './part-form-dialog';
 import { kindWords, originWords, problemTitles, problemWords, quantityWords } from './words';
 
 function Section({ title, id, actions, children }: { title: string; id: string; actions?: ReactNode; children: ReactNode }) {
@@ -91,6 +88,12 @@ export interface PartViewProps {
   lineage: { data?: LineageGraphResponse; isPending: boolean; error: unknown; refetch: () => void };
   canEdit: boolean;
 }
+
+// The edit dialogs (forms checked with the contracts' schemas, so zod) load when first opened:
+// the part shows without them (docs/decisions/024-mobile-first-load.md).
+const PartFormDialog = lazy(() => import('./part-form-dialog').then((m) => ({ default: m.PartFormDialog })));
+const LinkFormDialog = lazy(() => import('./link-form-dialog').then((m) => ({ default: m.LinkFormDialog })));
+const FitmentFormDialog = lazy(() => import('./fitment-form-dialog').then((m) => ({ default: m.FitmentFormDialog })));
 
 /** Everything the shop knows about one part: details, current number, problems, lineage, links and fitment. */
 export function PartView({ shopId, detail, lineage, canEdit }: PartViewProps) {
@@ -242,11 +245,13 @@ export function PartView({ shopId, detail, lineage, canEdit }: PartViewProps) {
         />
       </Section>
 
-      {editingPart && <PartFormDialog shopId={shopId} open onClose={() => setEditingPart(false)} part={part} />}
-      {linkDialog && <LinkFormDialog shopId={shopId} open onClose={() => setLinkDialog(null)} from={part} link={linkDialog.link} />}
-      {fitmentDialog && (
-        <FitmentFormDialog shopId={shopId} partId={part.id} partNumber={part.number} open onClose={() => setFitmentDialog(null)} fitment={fitmentDialog.fitment} />
-      )}
+      <Suspense fallback={null}>
+        {editingPart && <PartFormDialog shopId={shopId} open onClose={() => setEditingPart(false)} part={part} />}
+        {linkDialog && <LinkFormDialog shopId={shopId} open onClose={() => setLinkDialog(null)} from={part} link={linkDialog.link} />}
+        {fitmentDialog && (
+          <FitmentFormDialog shopId={shopId} partId={part.id} partNumber={part.number} open onClose={() => setFitmentDialog(null)} fitment={fitmentDialog.fitment} />
+        )}
+      </Suspense>
       <ConfirmDialog
         open={deletingLink !== null}
         destructive

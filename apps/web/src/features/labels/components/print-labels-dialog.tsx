@@ -207,16 +207,3 @@ export function PrintLabelsDialog({ shopId, source, open, onClose }: PrintLabels
     </Dialog>
   );
 }
-
-/** A "Print labels" button with its dialog, for a part page, a list selection or a bin. */
-export function PrintLabelsButton({ shopId, source, label = 'Print labels', variant = 'secondary' }: { shopId: string; source: LabelSource; label?: string; variant?: 'primary' | 'secondary' }) {
-  const [open, setOpen] = useState(false);
-  return (
-    <>
-      <Button variant={variant} onClick={() => setOpen(true)}>
-        {label}
-      </Button>
-      {open && <PrintLabelsDialog shopId={shopId} source={source} open onClose={() => setOpen(false)} />}
-    </>
-  );
-}

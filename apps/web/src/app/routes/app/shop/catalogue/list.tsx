@@ -11,7 +11,7 @@ import { CatalogueList } from '../../../../../features/catalogue/components/cata
 import { PartFormDialog } from '../../../../../features/catalogue/components/part-form-dialog';
 import { ProblemsBanner } from '../../../../../features/catalogue/components/problems-banner';
 import { parsePartListParams, usePartListParams } from '../../../../../features/catalogue/hooks/use-part-list-params';
-import { PrintLabelsButton } from '../../../../../features/labels/components/print-labels-dialog';
+import { PrintLabelsButton } from '../../../../../features/labels/components/print-labels-button';
 import { useCan } from '../../../../../lib/ability';
 import { useMe } from '../../../../../lib/auth';
 import { useDocumentTitle } from '../../../../../lib/use-document-title';

@@ -6,7 +6,7 @@ import { paths } from '../../../../../config/paths';
 import { useLineage } from '../../../../../features/catalogue/api/get-lineage';
 import { usePart } from '../../../../../features/catalogue/api/get-part';
 import { PartView } from '../../../../../features/catalogue/components/part-view';
-import { PrintLabelsButton } from '../../../../../features/labels/components/print-labels-dialog';
+import { PrintLabelsButton } from '../../../../../features/labels/components/print-labels-button';
 import { useCan } from '../../../../../lib/ability';
 import { ApiError, errorMessage } from '../../../../../lib/api-client';
 import { useDocumentTitle } from '../../../../../lib/use-document-title';

@@ -1,5 +1,5 @@
 import { useParams } from 'react-router-dom';
-import { PrintLabelsButton } from '../../../../../features/labels/components/print-labels-dialog';
+import { PrintLabelsButton } from '../../../../../features/labels/components/print-labels-button';
 import { useOrder } from '../../../../../features/purchasing/api/get-order';
 import { OrderDetail } from '../../../../../features/purchasing/components/order-detail';
 import { useCan } from '../../../../../lib/ability';
