@@ -4,7 +4,7 @@
 // request logging on); autocannon loads it from this process. Figures: a trivial route (the ceiling
 // on this machine), authenticated lookups of typo'd numbers, and the same lookups while a
 // 50,000-row catalogue import commits. Target: lookups ≥ 1,500 req/s with p99 ≤ 50 ms.
-import { spawn } from 'node:child_process';
+import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -30,8 +30,10 @@ function cpuSeconds(pid: number): number {
   return (Number(fields[11]) + Number(fields[12])) / 100; // utime, stime in clock ticks (USER_HZ = 100)
 }
 
-async function waitForHealth(): Promise<void> {
+async function waitForHealth(server: ChildProcess): Promise<void> {
   for (let i = 0; i < 240; i++) {
+    // Exited (e.g. the port is taken): fail here rather than measure whatever answers on the port.
+    if (server.exitCode !== null || server.signalCode !== null) throw new Error(`The API exited (${server.exitCode ?? server.signalCode}) before it answered: is the port in use?`);
     try {
       if ((await fetch(`${base}/api/health`)).ok) return;
     } catch {
@@ -57,13 +59,17 @@ export async function runHttpBench(partCount = 50_000): Promise<Figure[]> {
 
   // BENCH_HTTP_NODE_ARGS (e.g. `--cpu-prof --cpu-prof-dir=/tmp/prof`) profiles the API process.
   const nodeArgs = (process.env.BENCH_HTTP_NODE_ARGS ?? '').split(' ').filter(Boolean);
+  // A server left over from an interrupted run would answer instead of this one.
+  if (await fetch(`${base}/api/health`).then(() => true, () => false)) throw new Error(`Something already answers on ${base}: stop it first.`);
   const server = spawn(process.execPath, [...nodeArgs, '--import', 'tsx', path.join(repo, 'apps/api/src/main.ts')], {
     cwd: repo,
     env: { ...process.env, TAPPET_MODE: 'demo', PORT: String(PORT), PUBLIC_URL: base, TAPPET_DATA_DIR: dir, LOG_LEVEL: 'info' },
     stdio: 'ignore',
   });
+  // Taken now, so that an early exit is not missed when the benchmark stops it.
+  const exited = new Promise<void>((resolve) => server.once('exit', () => resolve()));
   try {
-    await waitForHealth();
+    await waitForHealth(server);
     const signIn = async (email: string) => {
       const res = await fetch(`${base}/api/auth/sign-in`, { method: 'POST', headers: { 'Content-Type': 'application/json', 'X-CSRF': '1', Origin: base }, body: JSON.stringify({ email, password: created.password }) });
       if (!res.ok) throw new Error(`sign-in failed: ${res.status} ${await res.text()}`);
@@ -130,7 +136,7 @@ export async function runHttpBench(partCount = 50_000): Promise<Figure[]> {
     return figures;
   } finally {
     server.kill('SIGTERM');
-    await new Promise((r) => server.once('exit', r));
+    await exited;
     fs.rmSync(dir, { recursive: true, force: true });
   }
 }

@@ -1,7 +1,7 @@
 // Lighthouse (issue 14): the lookup and part pages of the demo, signed in as the demo mechanic,
 // in Debian's Chromium, with Lighthouse 12's default (mobile, simulated throttling) and desktop
 // settings. Targets: performance ≥ 90, accessibility ≥ 95. Needs the built web app (dist/apps/web).
-import { spawn, spawnSync } from 'node:child_process';
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -16,8 +16,10 @@ const PORT = 3971;
 const base = `http://localhost:${PORT}`;
 const chromeFlags = ['--headless=new', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'];
 
-async function waitForHealth(): Promise<void> {
+async function waitForHealth(server: ChildProcess): Promise<void> {
   for (let i = 0; i < 240; i++) {
+    // Exited (e.g. the port is taken): fail here rather than measure whatever answers on the port.
+    if (server.exitCode !== null || server.signalCode !== null) throw new Error(`The API exited (${server.exitCode ?? server.signalCode}) before it answered: is the port in use?`);
     try {
       if ((await fetch(`${base}/api/health`)).ok) return;
     } catch {
@@ -38,10 +40,14 @@ export async function runLighthouseBench(): Promise<Figure[]> {
   const tsx = path.join(repo, 'node_modules/.bin/tsx');
   const seeded = spawnSync(tsx, ['seeds/seed-cli.ts'], { cwd: repo, env, encoding: 'utf8' });
   if (seeded.status !== 0) throw new Error(`The demo seed failed:\n${seeded.stderr}`);
+  // A server left over from an interrupted run would answer instead of this one.
+  if (await fetch(`${base}/api/health`).then(() => true, () => false)) throw new Error(`Something already answers on ${base}: stop it first.`);
   const server = spawn(tsx, ['apps/api/src/main.ts'], { cwd: repo, env, stdio: 'ignore' });
   const chrome = await chromeLauncher.launch({ chromePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', chromeFlags });
+  // Taken now, so that an early exit is not missed when the benchmark stops it.
+  const exited = new Promise<void>((resolve) => server.once('exit', () => resolve()));
   try {
-    await waitForHealth();
+    await waitForHealth(server);
     const res = await fetch(`${base}/api/auth/sign-in`, { method: 'POST', headers: { 'Content-Type': 'application/json', 'X-CSRF': '1', Origin: base }, body: JSON.stringify({ email: 'mechanic@harbour-works.test', password: 'tappet-demo' }) });
     if (!res.ok) throw new Error(`sign-in failed: ${res.status}`);
     const cookie = res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
@@ -80,7 +86,7 @@ export async function runLighthouseBench(): Promise<Figure[]> {
   } finally {
     chrome.kill();
     server.kill('SIGTERM');
-    await new Promise((r) => server.once('exit', r));
+    await exited;
     fs.rmSync(dir, { recursive: true, force: true });
   }
 }
