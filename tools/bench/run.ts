@@ -1,6 +1,6 @@
 // `npm run bench`: runs benchmarks in tools/bench/ and updates docs/performance.md.
 // Figures are medians and p95s over repeated runs, with a calibration baseline from the same run.
-//   npm run bench                          every benchmark (about 30 minutes on 2 quiet cores)
+//   npm run bench                          every benchmark (about 10 minutes on 2 quiet cores)
 //   npm run bench -- --only lookup,http    some of them (lineage, lookup, import, reorder, http,
 //                                          lighthouse); their sections are replaced, the other
 //                                          benchmarks' sections are kept with their own dates
