@@ -1,6 +1,6 @@
 /* eslint-disable @nx/enforce-module-boundaries -- the seed writes through the API's own entities (see demo.ts) */
 import type { EntityManager } from 'typeorm';
-import { normalisePartNumber } from '@tappet/domain';
+import { normalisePartNumber, seededRandom } from '@tappet/domain';
 import { FitmentEntity, PartEntity, PartLinkEntity, PartSupplierNumberEntity, type FitmentRow, type PartLinkRow, type PartRow } from '../apps/api/src/modules/catalogue/catalogue.entity';
 import { recordAudit } from '../apps/api/src/modules/audit/audit.service';
 
@@ -9,14 +9,7 @@ import { recordAudit } from '../apps/api/src/modules/audit/audit.service';
 
 /** mulberry32: a small, well-known seeded PRNG; returns numbers in [0, 1). */
 function prng(seed: number) {
-  let a = seed >>> 0;
-  const next = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const next = seededRandom(seed);
   return {
     next,
     int: (min: number, max: number) => min + Math.floor(next() * (max - min + 1)),

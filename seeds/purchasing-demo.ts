@@ -1,4 +1,5 @@
 /* eslint-disable @nx/enforce-module-boundaries -- the seed writes through the API's own entities (see demo.ts) */
+import { seededRandom } from '@tappet/domain';
 import { randomUUID } from 'node:crypto';
 import type { EntityManager } from 'typeorm';
 import type { PurchaseOrderStatus } from '@tappet/contracts';
@@ -14,17 +15,8 @@ import { adjustStock, receiveStock } from '../apps/api/src/modules/stock/stock.s
 
 const DAY = 86_400_000;
 
-/** A small seeded PRNG (mulberry32), so every seed gives the same purchasing data. */
-function prng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** The same draws for the same seed, so every seed gives the same purchasing data. */
+const prng = seededRandom;
 
 const supplierSpecs = [
   { name: 'Marrick Spares', email: 'orders@marrick-spares.test', currency: 'GBP', leadTimeDays: 7, leadTimeSdDays: 2, minOrderValueMinor: 15_000, notes: 'Next-day dispatch on stocked lines; phone orders before noon.' },

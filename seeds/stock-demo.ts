@@ -1,6 +1,6 @@
 /* eslint-disable @nx/enforce-module-boundaries -- the seed writes through the API's own entities (see demo.ts) */
 import type { EntityManager } from 'typeorm';
-import { closingPosition, normalisePartNumber } from '@tappet/domain';
+import { closingPosition, normalisePartNumber, seededRandom } from '@tappet/domain';
 import type { MovementKind, StockCondition } from '@tappet/contracts';
 import { recordAudit } from '../apps/api/src/modules/audit/audit.service';
 import { PartEntity, type PartRow } from '../apps/api/src/modules/catalogue/catalogue.entity';
@@ -15,14 +15,7 @@ const DAY = 86_400_000;
 
 /** A small seeded PRNG (mulberry32) so every seed gives the same stock. */
 function prng(seed: number) {
-  let a = seed >>> 0;
-  const next = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const next = seededRandom(seed);
   const uuid = () => {
     const hex = Array.from({ length: 32 }, () => Math.floor(next() * 16).toString(16));
     hex[12] = '4';

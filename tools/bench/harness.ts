@@ -2,6 +2,7 @@
 // the same run so figures from a busy, shared machine can be compared as ratios.
 import { cpus, totalmem, type as osType, release } from 'node:os';
 import { performance } from 'node:perf_hooks';
+import { seededRandom } from '@tappet/domain';
 
 export interface Figure {
   name: string;
@@ -60,14 +61,5 @@ export function machineDescription(): string {
   return `${c.length} × ${c[0]?.model ?? 'unknown CPU'}, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, ${osType()} ${release()}, Node ${process.version}`;
 }
 
-/** A deterministic PRNG (mulberry32) so generated data is the same in every run. */
-export function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** A deterministic PRNG (mulberry32, libs/domain) so generated data is the same in every run. */
+export const prng = seededRandom;

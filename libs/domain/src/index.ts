@@ -31,3 +31,4 @@ export * from './reorder';
 export * from './search';
 export * from './checklists';
 export * from './sales';
+export { seededRandom } from './random/seeded-random';

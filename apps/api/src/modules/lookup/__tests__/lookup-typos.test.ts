@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { partSearchQuerySchema } from '@tappet/contracts';
-import { normalisePartNumber } from '@tappet/domain';
+import { normalisePartNumber, seededRandom } from '@tappet/domain';
 import { createTestContext, onPostgres, seedShop, signedInAgent, type TestContext } from '../../../test-support/test-app';
 import { PartEntity } from '../../catalogue/catalogue.entity';
 import { createCatalogueService } from '../../catalogue/catalogue.service';
@@ -14,15 +14,6 @@ let lookup: LookupService;
 let shopId: string;
 const catalogue: Array<{ id: string; number: string }> = [];
 
-/** A small deterministic generator (mulberry32), so a failure names a number that can be re-run. */
-function random(seed: number) {
-  return () => {
-    seed = (seed + 0x6d2b79f5) | 0;
-    let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Every printed number one edit from `number` on its normalised key: removed, added, changed or swapped characters. */
 function oneEditVariants(key: string, alphabet: string): string[] {
@@ -43,7 +34,7 @@ beforeAll(async () => {
   ctx = await createTestContext();
   const shop = await seedShop(ctx, ['mechanic']);
   shopId = shop.shop.id;
-  const rnd = random(1971);
+  const rnd = seededRandom(1971);
   const pick = (chars: string) => chars[Math.floor(rnd() * chars.length)]!;
   const letters = 'ABCDEFGHJKLMNPRSTUVWXYZ';
   const numbers = new Set<string>();

@@ -1,3 +1,4 @@
+import { seededRandom } from '@tappet/domain';
 import fs from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -13,17 +14,6 @@ const DAY = 86_400_000;
 let ctx: TestContext;
 let list: unknown;
 
-/** mulberry32: the same draws on every run, so the same shop. */
-function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 beforeAll(async () => {
   ctx = await createTestContext();
@@ -33,7 +23,7 @@ beforeAll(async () => {
   // Every other part out of stock, so that many parts are due.
   let lines = 0;
   const sink = (table: string, row: Record<string, unknown>) => rows.push({ table, row: table === 'stock_lines' && lines++ % 2 === 0 ? { ...row, on_hand: 0 } : row });
-  generateReorderShop(sink, { shopId: shop.shop.id, partCount: 400, now, rand: seeded(14) });
+  generateReorderShop(sink, { shopId: shop.shop.id, partCount: 400, now, rand: seededRandom(14) });
   // What the generator never makes: two movements of a part on one day, and a day whose job returns
   // outweigh its issues (counted as no demand, not negative demand).
   const at = (daysAgo: number) => new Date(now - daysAgo * DAY).toISOString().replace('T', ' ').replace('Z', '');

@@ -1,0 +1,15 @@
+/**
+ * mulberry32, a small, well-known 32-bit generator: the same seed gives the same numbers in
+ * [0, 1) on every run and machine. For generated data (demo seeds, benchmarks, tests), where a
+ * failure or a figure must be reproducible; never for anything secret.
+ */
+export function seededRandom(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
