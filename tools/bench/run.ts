@@ -61,7 +61,8 @@ function descriptions(): string {
 - **http** — the API in its own process on loopback (request logging on, as \`npm start\` runs
   it), loaded by autocannon from the benchmark process with 10 connections for 10 s: a trivial
   route as the ceiling, authenticated lookups of typo'd numbers over 50,000 parts, and the same
-  while a 50,000-row import commits.
+  while a 50,000-row import commits; each with the API process's CPU time per request (from
+  /proc), which a shared machine disturbs less than the throughput.
 - **lighthouse** — the demo's lookup and part pages, signed in as the demo mechanic, in Debian's
   Chromium, with Lighthouse 12's default (mobile, simulated slow network and CPU) and desktop
   settings.`;
