@@ -7,6 +7,8 @@ import { paths } from '../config/paths';
 import { lineageQueryOptions } from '../features/catalogue/api/get-lineage';
 import { partQueryOptions } from '../features/catalogue/api/get-part';
 import { homeHref, meQueryOptions } from '../lib/auth';
+import * as appLayout from './routes/app/layout';
+import * as shopLayout from './routes/app/shop/layout';
 import { RootErrorBoundary, RootFallback, RootLayout } from './routes/root';
 
 /** What a lazily loaded route module may export. */
@@ -53,11 +55,11 @@ export function createAppRouter(queryClient: QueryClient, createRouter: RouterFa
         { path: paths.auth.estimateApproval.path, lazy: load(queryClient, () => import('./routes/estimate-approval')) },
         {
           id: 'app',
-          lazy: load(queryClient, () => import('./routes/app/layout')),
+          lazy: load(queryClient, async () => appLayout),
           children: [
             {
               path: paths.shop.home.path,
-              lazy: load(queryClient, () => import('./routes/app/shop/layout')),
+              lazy: load(queryClient, async () => shopLayout),
               children: [
                 { index: true, lazy: load(queryClient, () => import('./routes/app/shop/home')) },
                 { path: 'shop', lazy: load(queryClient, () => import('./routes/app/shop/settings')) },

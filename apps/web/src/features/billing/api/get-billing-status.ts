@@ -1,11 +1,12 @@
 import type { BillingStatus } from '@tappet/contracts';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
+import { billingStatusCheck } from './billing-status-check';
 import { billingKeys } from './keys';
 
 /** GET /api/shops/:shopId/billing/status: the state and read-only reason (every member). */
 export function getBillingStatus(shopId: string, signal?: AbortSignal): Promise<BillingStatus> {
-  return api.get(`/shops/${encodeURIComponent(shopId)}/billing/status`, { schema: () => import('./schemas').then((m) => m.billingStatusSchema), signal });
+  return api.get(`/shops/${encodeURIComponent(shopId)}/billing/status`, { schema: billingStatusCheck, signal });
 }
 
 export function billingStatusQueryOptions(shopId: string) {

@@ -1,3 +1,3 @@
-// The billing notice's response schemas, loaded on demand: the notice and its buttons are on every
-// shop screen, and zod should not be in their first download (docs/decisions/022-first-load.md).
-export { billingStatusSchema, redirectResponseSchema } from '@tappet/contracts';
+// The billing buttons' response schema, loaded on demand: the buttons are on every shop screen's
+// notice, and zod should not be in their first download (docs/decisions/022-first-load.md).
+export { redirectResponseSchema } from '@tappet/contracts';

@@ -23,7 +23,8 @@ describe('the part page', () => {
     expect(await screen.findByRole('heading', { level: 1, name: /71-3456/ }, slow)).toHaveTextContent('Clutch pushrod seal');
     expect(screen.getByText('Current orderable number:').parentElement).toHaveTextContent('Current orderable number: 71-3458 ×2');
     expect(screen.getByText('HX 220-14')).toBeInTheDocument();
-    const fitments = screen.getByRole('table', { name: 'What this part fits' });
+    // The tables load just after the part's first paint.
+    const fitments = await screen.findByRole('table', { name: 'What this part fits' }, slow);
     expect(fitments).toHaveTextContent('Ferncastle');
     expect(fitments).toHaveTextContent('1968–1971');
     const linksFrom = screen.getByRole('table', { name: 'Links from 71-3456' });
@@ -60,7 +61,7 @@ describe('the part page', () => {
     const problems = await screen.findByRole('region', { name: 'A data problem touches this part' }, slow);
     expect(problems).toHaveTextContent('Circular replacement: These numbers replace one another in a circle: 71-3456 → 71-3457.');
     expect(screen.getByText(/No current orderable number/)).toBeInTheDocument();
-    expect(screen.getByText(/goes on beyond what is shown/)).toBeInTheDocument();
+    expect(await screen.findByText(/goes on beyond what is shown/, {}, slow)).toBeInTheDocument();
     const picture = await screen.findByRole('figure', {}, slow);
     expect(within(picture).getByRole('link', { name: /71-3457/ })).toHaveTextContent('Problem');
     expect(within(picture).getByRole('link', { name: /71-3458/ })).not.toHaveTextContent('Problem');

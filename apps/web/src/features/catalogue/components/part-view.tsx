@@ -1,31 +1,12 @@
-import type { Fitment, LineageGraphResponse, PartDetailResponse, PartLink } from '@tappet/contracts';
-import { Button, ConfirmDialog, ErrorState, IconAdvise, IconOk, LoadingState, PartNumber, useToast } from '@tappet/ui';
-import { lazy, Suspense, useState, type ReactNode } from 'react';
+import type { LineageGraphResponse, PartDetailResponse } from '@tappet/contracts';
+import { Button, IconAdvise, IconOk, LoadingState, PartNumber } from '@tappet/ui';
+import { lazy, Suspense, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
-import { errorMessage } from '../../../lib/api-client';
-import { useDeleteFitment } from '../api/delete-fitment';
-import { useDeleteLink } from '../api/delete-link';
-import { FitmentsTable } from './fitments-table';
-import { LineageList } from './lineage-list';
-import { LineagePicture } from './lineage-picture';
-import { LinksTable } from './links-table';
+import { useAfterPaint } from '../../../lib/use-after-paint';
 import { PartStatusPill } from './part-badges';
-import { kindWords, originWords, problemTitles, problemWords, quantityWords } from './words';
-
-function Section({ title, id, actions, children }: { title: string; id: string; actions?: ReactNode; children: ReactNode }) {
-  return (
-    <section aria-labelledby={id} className="flex flex-col gap-4 rounded-lg border-2 border-line bg-surface p-5">
-      <div className="flex flex-wrap items-center justify-between gap-3">
-        <h2 id={id} className="text-lg font-bold">
-          {title}
-        </h2>
-        {actions && <div className="flex gap-2">{actions}</div>}
-      </div>
-      {children}
-    </section>
-  );
-}
+import { Section } from './part-section';
+import { originWords, problemTitles, problemWords, quantityWords } from './words';
 
 /** "Current orderable number: …", or why there is none. */
 export function CurrentParts({ shopId, detail }: { shopId: string; detail: PartDetailResponse }) {
@@ -89,23 +70,20 @@ export interface PartViewProps {
   canEdit: boolean;
 }
 
-// The edit dialogs (forms checked with the contracts' schemas, so zod) load when first opened:
-// the part shows without them (docs/decisions/024-mobile-first-load.md).
+// The edit form (checked with the contracts' schemas, so zod) loads when first opened: the part
+// shows without it (docs/decisions/024-mobile-first-load.md).
 const PartFormDialog = lazy(() => import('./part-form-dialog').then((m) => ({ default: m.PartFormDialog })));
-const LinkFormDialog = lazy(() => import('./link-form-dialog').then((m) => ({ default: m.LinkFormDialog })));
-const FitmentFormDialog = lazy(() => import('./fitment-form-dialog').then((m) => ({ default: m.FitmentFormDialog })));
+// The sections below the details (the lineage picture, the tables and their forms) are most of the
+// page's code and rendering work: they load once the part's number, current number and details are
+// on screen (docs/decisions/026-first-screen-requests.md).
+const PartSections = lazy(() => import('./part-sections').then((m) => ({ default: m.PartSections })));
+const sectionsLoading = <LoadingState label="Loading the lineage, links and fitment…" />;
 
 /** Everything the shop knows about one part: details, current number, problems, lineage, links and fitment. */
 export function PartView({ shopId, detail, lineage, canEdit }: PartViewProps) {
-  const { part, linksFrom, linksTo, fitments, problems } = detail;
-  const toast = useToast();
+  const { part, problems } = detail;
   const [editingPart, setEditingPart] = useState(false);
-  const [linkDialog, setLinkDialog] = useState<{ link?: PartLink } | null>(null);
-  const [fitmentDialog, setFitmentDialog] = useState<{ fitment?: Fitment } | null>(null);
-  const [deletingLink, setDeletingLink] = useState<PartLink | null>(null);
-  const [deletingFitment, setDeletingFitment] = useState<Fitment | null>(null);
-  const deleteLink = useDeleteLink(shopId);
-  const deleteFitment = useDeleteFitment(shopId);
+  const painted = useAfterPaint();
 
   return (
     <div className="flex flex-col gap-6">
@@ -177,126 +155,14 @@ export function PartView({ shopId, detail, lineage, canEdit }: PartViewProps) {
         </dl>
       </Section>
 
-      <Section title="Lineage" id="lineage-title">
-        {lineage.isPending ? (
-          <LoadingState label="Loading the lineage…" />
-        ) : lineage.error || !lineage.data ? (
-          <ErrorState message={errorMessage(lineage.error)} onRetry={lineage.refetch} />
-        ) : (
-          <div className="grid grid-cols-1 gap-6 xl:grid-cols-[minmax(0,1fr)_18rem]">
-            <LineagePicture shopId={shopId} graph={lineage.data} number={part.number} />
-            <div className="flex flex-col gap-2">
-              <h3 className="font-bold">In words</h3>
-              <LineageList shopId={shopId} graph={lineage.data} />
-            </div>
-          </div>
-        )}
-      </Section>
-
-      <Section
-        title="Links from this part"
-        id="links-from-title"
-        actions={
-          canEdit && (
-            <Button variant="secondary" size="sm" onClick={() => setLinkDialog({})}>
-              Add link
-            </Button>
-          )
-        }
-      >
-        <LinksTable
-          shopId={shopId}
-          links={linksFrom}
-          direction="from"
-          caption={`Links from ${part.number}`}
-          emptyText="This part is not replaced by, made up of or equivalent to another part."
-          onEdit={canEdit ? (link) => setLinkDialog({ link }) : undefined}
-          onDelete={canEdit ? setDeletingLink : undefined}
-        />
-      </Section>
-
-      <Section title="Links to this part" id="links-to-title">
-        <LinksTable
-          shopId={shopId}
-          links={linksTo}
-          direction="to"
-          caption={`Links to ${part.number}`}
-          emptyText="No other part points to this one. Add such a link from the other part's page."
-          onEdit={canEdit ? (link) => setLinkDialog({ link }) : undefined}
-          onDelete={canEdit ? setDeletingLink : undefined}
-        />
-      </Section>
-
-      <Section
-        title="Fitment"
-        id="fitment-title"
-        actions={
-          canEdit && (
-            <Button variant="secondary" size="sm" onClick={() => setFitmentDialog({})}>
-              Add fitment
-            </Button>
-          )
-        }
-      >
-        <FitmentsTable
-          fitments={fitments}
-          onEdit={canEdit ? (fitment) => setFitmentDialog({ fitment }) : undefined}
-          onDelete={canEdit ? setDeletingFitment : undefined}
-        />
-      </Section>
-
-      <Suspense fallback={null}>
-        {editingPart && <PartFormDialog shopId={shopId} open onClose={() => setEditingPart(false)} part={part} />}
-        {linkDialog && <LinkFormDialog shopId={shopId} open onClose={() => setLinkDialog(null)} from={part} link={linkDialog.link} />}
-        {fitmentDialog && (
-          <FitmentFormDialog shopId={shopId} partId={part.id} partNumber={part.number} open onClose={() => setFitmentDialog(null)} fitment={fitmentDialog.fitment} />
-        )}
-      </Suspense>
-      <ConfirmDialog
-        open={deletingLink !== null}
-        destructive
-        title="Delete this link?"
-        message={
-          deletingLink && (
-            <>
-              “{deletingLink.fromNumber} {kindWords[deletingLink.kind]} {deletingLink.toNumber}” will be removed, and the lineage of both numbers
-              will be worked out without it. You can add it again later.
-            </>
-          )
-        }
-        confirmLabel="Delete link"
-        loading={deleteLink.isPending}
-        onCancel={() => setDeletingLink(null)}
-        onConfirm={() => {
-          if (!deletingLink) return;
-          deleteLink.mutate(deletingLink.id, {
-            onSuccess: () => {
-              toast.show('Link deleted.', 'ok');
-              setDeletingLink(null);
-            },
-            onError: (error) => toast.show(errorMessage(error), 'fail'),
-          });
-        }}
-      />
-      <ConfirmDialog
-        open={deletingFitment !== null}
-        destructive
-        title="Delete this fitment?"
-        message={deletingFitment && <>{part.number} will no longer be listed as fitting the {deletingFitment.marque} {deletingFitment.model}.</>}
-        confirmLabel="Delete fitment"
-        loading={deleteFitment.isPending}
-        onCancel={() => setDeletingFitment(null)}
-        onConfirm={() => {
-          if (!deletingFitment) return;
-          deleteFitment.mutate(deletingFitment.id, {
-            onSuccess: () => {
-              toast.show('Fitment deleted.', 'ok');
-              setDeletingFitment(null);
-            },
-            onError: (error) => toast.show(errorMessage(error), 'fail'),
-          });
-        }}
-      />
+      {painted ? (
+        <Suspense fallback={sectionsLoading}>
+          <PartSections shopId={shopId} detail={detail} lineage={lineage} canEdit={canEdit} />
+        </Suspense>
+      ) : (
+        sectionsLoading
+      )}
+      <Suspense fallback={null}>{editingPart && <PartFormDialog shopId={shopId} open onClose={() => setEditingPart(false)} part={part} />}</Suspense>
     </div>
   );
 }

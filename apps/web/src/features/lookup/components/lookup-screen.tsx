@@ -139,7 +139,7 @@ export function LookupScreen({ shopId, userId }: { shopId: string; userId: strin
               onChange={(event) => setText(event.target.value)}
               onKeyDown={onKeyDown}
               placeholder="Number, supplier number or words"
-              className="min-h-14 w-full rounded-lg border-2 border-line-strong bg-surface px-4 py-3 font-mono text-xl text-ink placeholder:font-sans placeholder:text-ink-muted focus:border-accent focus:outline-none focus-visible:ring-2 focus-visible:ring-accent"
+              className="min-h-14 w-full rounded-lg border-2 border-line-strong bg-surface px-4 py-3 font-mono font-medium text-xl text-ink placeholder:font-sans placeholder:text-ink-muted focus:border-accent focus:outline-none focus-visible:ring-2 focus-visible:ring-accent"
             />
             {(search.isFetching || opening) && (
               <Spinner size={20} className="absolute top-1/2 right-4 -translate-y-1/2 text-accent" />

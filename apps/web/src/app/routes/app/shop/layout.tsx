@@ -4,6 +4,7 @@ import { useEffect } from 'react';
 import { data, isRouteErrorResponse, Outlet, useParams, useRouteError, type LoaderFunctionArgs } from 'react-router-dom';
 import { NotFoundContent } from '../../../../components/errors/not-found';
 import { useSetActiveShop } from '../../../../features/shops/api/set-active-shop';
+import { billingStatusQueryOptions } from '../../../../features/billing/api/get-billing-status';
 import { BillingNotice } from '../../../../features/billing/components/billing-notice';
 import { meQueryOptions, useMe } from '../../../../lib/auth';
 import { clearShopCaches } from '../../../../lib/query-client';
@@ -16,6 +17,9 @@ export const clientLoader =
     // A platform admin may have been granted support access since /api/me was last read.
     if (me?.user.isPlatformAdmin && !me.memberships.some((m) => m.shopId === params.shopId)) me = await queryClient.fetchQuery(meQueryOptions());
     if (!me || !me.memberships.some((m) => m.shopId === params.shopId)) throw data('Shop not found', { status: 404 });
+    // The billing notice's status, asked for now beside the screen's own code rather than after
+    // the first render: one round trip fewer before the first screen (decision 026).
+    void queryClient.prefetchQuery(billingStatusQueryOptions(params.shopId ?? ''));
     return null;
   };
 

@@ -9,13 +9,17 @@ import { PartView } from '../../../../../features/catalogue/components/part-view
 import { PrintLabelsButton } from '../../../../../features/labels/components/print-labels-button';
 import { useCan } from '../../../../../lib/ability';
 import { ApiError, errorMessage } from '../../../../../lib/api-client';
+import { useAfterPaint } from '../../../../../lib/use-after-paint';
 import { useDocumentTitle } from '../../../../../lib/use-document-title';
 
 // The panels below the part (stock, purchasing, price) fetch their own data and carry their own
-// forms: loaded beside the page's data rather than before the part can show (docs/decisions/022-first-load.md).
+// forms: loaded once the part has been painted rather than before it can show
+// (docs/decisions/022-first-load.md, 026-first-screen-requests.md).
 const PartStockPanel = lazy(() => import('../../../../../features/stock/components/part-stock-panel').then((m) => ({ default: m.PartStockPanel })));
 const PartPurchasingPanel = lazy(() => import('../../../../../features/purchasing/components/part-purchasing-panel').then((m) => ({ default: m.PartPurchasingPanel })));
 const PartPricePanel = lazy(() => import('../../../../../features/sales/components/part-price-panel').then((m) => ({ default: m.PartPricePanel })));
+
+const panelsLoading = <LoadingState label="Loading stock, purchasing and price…" />;
 
 /** One part (its data is prefetched by the router's loader, see app/router.tsx): its number as the hero, details, current number, lineage picture, links and fitment. */
 export default function PartRoute() {
@@ -27,6 +31,7 @@ export default function PartRoute() {
   const canReadPurchasing = useCan('read', 'Supplier', { shopId });
   // Sales (issue 12): the sell price for everyone who reads parts; cost and margin only where the API gives them.
   const canSetListPrice = useCan('update', 'Settings', { shopId });
+  const painted = useAfterPaint();
   useDocumentTitle(part.data ? `${part.data.part.number} · Catalogue` : 'Part');
 
   const back = (
@@ -62,11 +67,15 @@ export default function PartRoute() {
         canEdit={canEdit}
         lineage={{ data: lineage.data, isPending: lineage.isPending, error: lineage.error, refetch: () => void lineage.refetch() }}
       />
-      <Suspense fallback={<LoadingState label="Loading stock, purchasing and price…" />}>
-        {canReadStock && <PartStockPanel shopId={shopId} partId={p.id} />}
-        {canReadPurchasing && <PartPurchasingPanel shopId={shopId} partId={p.id} />}
-        <PartPricePanel shopId={shopId} partId={p.id} canSetListPrice={canSetListPrice} />
-      </Suspense>
+      {painted ? (
+        <Suspense fallback={panelsLoading}>
+          {canReadStock && <PartStockPanel shopId={shopId} partId={p.id} />}
+          {canReadPurchasing && <PartPurchasingPanel shopId={shopId} partId={p.id} />}
+          <PartPricePanel shopId={shopId} partId={p.id} canSetListPrice={canSetListPrice} />
+        </Suspense>
+      ) : (
+        panelsLoading
+      )}
     </>
   );
 }
