@@ -21,6 +21,9 @@ test('a mechanic types a mistyped number and opens the right part with the keybo
   const wanted = await addPart(page.request, shopId, { number: '71-3456', description: 'Clutch cable, inner', category: 'Controls' });
   await addPart(page.request, shopId, { number: '58-1200', description: 'Fork seal', category: 'Forks' });
   await addPart(page.request, shopId, { number: '71-9901', description: 'Throttle cable', category: 'Controls' });
+  // The owner prices the wanted part, so the result can quote it.
+  const priced = await page.request.put(`/api/shops/${shopId}/sales/parts/${wanted.id}/list-price`, { headers: writeHeaders, data: { listPriceMinor: 2499 } });
+  expect(priced.status(), await priced.text()).toBe(200);
   // The lookup is for everyone in the shop: the mechanic does it.
   await signIn(page.request, userWithRole(shop, 'mechanic').email, shop.password);
 
@@ -33,6 +36,7 @@ test('a mechanic types a mistyped number and opens the right part with the keybo
   await expect(first).toContainText('71-3456');
   await expect(first).toContainText('close to 71-3456 (1 typo)');
   await expect(first).toHaveAttribute('aria-selected', 'true');
+  await expect(first.getByTestId('lookup-sell-price')).toHaveText(/^Sell \D*24\.99 before tax$/);
   await page.keyboard.press('Enter');
   await expect(page).toHaveURL(new RegExp(`/shops/${shopId}/catalogue/${wanted.id}$`));
   await expect(page.getByText('Clutch cable, inner').first()).toBeVisible();

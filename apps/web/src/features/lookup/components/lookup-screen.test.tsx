@@ -24,12 +24,13 @@ const result = (overrides: Partial<PartSearchResult> = {}): PartSearchResult => 
 });
 
 /** The fake API: `answer(q)` gives the lookup's results; everything else the app needs at start. */
-function install(answer: (q: string) => { status?: number; body?: unknown }) {
+function install(answer: (q: string) => { status?: number; body?: unknown }, sellPrices: (ids: string[]) => { status?: number; body?: unknown } = () => ({ body: { currency: 'GBP', prices: [] } })) {
   const base: Record<string, (r: RecordedRequest) => { status?: number; body?: unknown }> = {
     'GET /me': () => ({ body: me }),
     [`GET /shops/${shopA}`]: () => ({ body: { id: shopA, name: 'Harbour Works', slug: 'harbour-works', createdAt: '2024-03-01T09:00:00.000Z' } }),
     [`GET /shops/${shopA}/parts/search`]: (r) => answer(new URLSearchParams(r.path.split('?')[1]).get('q') ?? ''),
     [`GET /shops/${shopA}/parts`]: () => ({ body: { items: [], total: 0, page: 1, pageSize: 1, categories: ['Brakes', 'Controls'] } }),
+    [`GET /shops/${shopA}/sales/sell-prices`]: (r) => sellPrices(new URLSearchParams(r.path.split('?')[1]).getAll('partIds')),
   };
   const routes = new Proxy(base, { get: (target, key) => (typeof key === 'string' ? (target[key] ?? target[key.split('?')[0] ?? key]) : undefined) });
   return installFakeApi(routes);
@@ -197,6 +198,40 @@ describe('the lookup screen', () => {
     expect(screen.queryByText('Not mine')).not.toBeInTheDocument();
     await user.click(within(recent).getByRole('link', { name: /71-3456/ }));
     await waitFor(() => expect(router.state.location.pathname).toBe(`/shops/${shopA}/catalogue/${partId}`));
+  });
+
+  it('shows each result’s sell price before tax, from one request for all the results', async () => {
+    const user = userEvent.setup();
+    const price = (id: string, unitMinor: number | null) => ({ partId: id, unitMinor, basis: unitMinor === null ? 'no-price' : 'list', markupPercent: null, listPriceMinor: unitMinor });
+    const { requests } = install(
+      (q) => ({ body: { results: q ? [result(), result({ id: otherId, number: '71-3465', description: 'Brake light switch' })] : [] } }),
+      (ids) => ({ body: { currency: 'GBP', prices: ids.map((id) => price(id, id === partId ? 2499 : null)) } }),
+    );
+    renderApp(`/shops/${shopA}/lookup`);
+    await user.type(await screen.findByRole('combobox', { name: 'Look up a part' }, slow), '71-34');
+    const list = await screen.findByRole('listbox', { name: 'Lookup results' }, slow);
+    const [first, second] = within(list).getAllByRole('option');
+    await waitFor(() => expect(within(first!).getByTestId('lookup-sell-price')).toHaveTextContent('Sell £24.99 before tax'));
+    // No price: nothing rather than a dash (the part's page says why).
+    expect(within(second!).queryByTestId('lookup-sell-price')).not.toBeInTheDocument();
+    const priceRequests = requests.filter((r) => r.path.startsWith(`/shops/${shopA}/sales/sell-prices`));
+    expect(priceRequests).toHaveLength(1);
+    expect(new URLSearchParams(priceRequests[0]!.path.split('?')[1]).getAll('partIds').sort()).toEqual([partId, otherId].sort());
+  });
+
+  it('still lists the results when the sell prices cannot be had', async () => {
+    const user = userEvent.setup();
+    install(
+      (q) => ({ body: { results: q ? [result()] : [] } }),
+      () => ({ status: 500, body: { error: { code: 'internal', message: 'The server had a problem.' } } }),
+    );
+    renderApp(`/shops/${shopA}/lookup`);
+    await user.type(await screen.findByRole('combobox', { name: 'Look up a part' }, slow), '71-34');
+    const list = await screen.findByRole('listbox', { name: 'Lookup results' }, slow);
+    expect(within(list).getByRole('option')).toHaveTextContent('71-3456');
+    await new Promise((r) => setTimeout(r, 200));
+    expect(within(list).queryByTestId('lookup-sell-price')).not.toBeInTheDocument();
+    expect(screen.queryByRole('alert')).not.toBeInTheDocument();
   });
 
   it('puts Lookup first in the rail', async () => {

@@ -1,7 +1,7 @@
 import type { LookupMatch, PartOrigin, PartSearchResult } from '@tappet/contracts';
 import { useQueryClient } from '@tanstack/react-query';
 import { Button, CameraScanButton, EmptyState, ErrorState, LoadingState, PartNumber, Spinner, StatusPill, cn } from '@tappet/ui';
-import { useEffect, useId, useRef, useState, type KeyboardEvent } from 'react';
+import { useEffect, useId, useMemo, useRef, useState, type KeyboardEvent, type ReactNode } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { errorMessage } from '../../../lib/api-client';
@@ -30,7 +30,17 @@ function typingElsewhere(target: EventTarget | null): boolean {
  * loads), arrow keys and Enter to open a part, "/" to come back to the field, recent lookups when
  * it is empty. A keyboard-wedge scanner's code followed by Enter opens an exact hit directly.
  */
-export function LookupScreen({ shopId, userId }: { shopId: string; userId: string }) {
+export interface LookupScreenProps {
+  shopId: string;
+  userId: string;
+  /**
+   * More about a result, under its stock line (the route puts the sell price there). Given the
+   * result's id and the ids of every result shown, so one request can serve them all.
+   */
+  resultExtra?: (partId: string, shownIds: readonly string[]) => ReactNode;
+}
+
+export function LookupScreen({ shopId, userId, resultExtra }: LookupScreenProps) {
   const navigate = useNavigate();
   const queryClient = useQueryClient();
   const inputRef = useRef<HTMLInputElement>(null);
@@ -44,7 +54,8 @@ export function LookupScreen({ shopId, userId }: { shopId: string; userId: strin
   const recent = useRecentLookups(userId, shopId);
   const scanner = useScannerInput();
 
-  const results = q && search.data ? search.data.results : [];
+  const results = useMemo(() => (q && search.data ? search.data.results : []), [q, search.data]);
+  const shownIds = useMemo(() => results.map((r) => r.id), [results]);
   // The highlighted row belongs to one query: a new answer starts again at the top.
   const activeIndex = active.q === q ? Math.min(active.index, Math.max(results.length - 1, 0)) : 0;
 
@@ -201,6 +212,7 @@ export function LookupScreen({ shopId, userId }: { shopId: string; userId: strin
                         <span className="font-bold">{matchWords[result.match]}:</span> {result.reason}
                       </span>
                       <LookupStock stock={result.stock} />
+                      {resultExtra?.(result.id, shownIds)}
                     </span>
                     <span className="col-span-2 flex flex-wrap items-center gap-2 sm:col-span-1 sm:justify-end">
                       <span className="text-sm">{originWords[result.origin]}</span>

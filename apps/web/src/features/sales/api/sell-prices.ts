@@ -1,4 +1,4 @@
-import { sellPricesResponseSchema, type SellPricesResponse } from '@tappet/contracts';
+import type { SellPricesResponse } from '@tappet/contracts';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
 import { salesApi, salesKey } from './keys';
@@ -7,7 +7,7 @@ import { salesApi, salesKey } from './keys';
 export function getSellPrices(shopId: string, partIds: readonly string[], signal?: AbortSignal): Promise<SellPricesResponse> {
   const query = new URLSearchParams();
   for (const id of partIds) query.append('partIds', id);
-  return api.get(`${salesApi(shopId)}/sell-prices?${query.toString()}`, { schema: sellPricesResponseSchema, signal });
+  return api.get(`${salesApi(shopId)}/sell-prices?${query.toString()}`, { schema: () => import('./schemas').then((m) => m.sellPricesResponseSchema), signal });
 }
 
 export function sellPricesQueryOptions(shopId: string, partIds: readonly string[]) {
