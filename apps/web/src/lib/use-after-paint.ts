@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { startTransition, useEffect, useState } from 'react';
 
 /**
  * Runs `fn` once the browser has shown what is on screen now. A frame callback runs just before
@@ -28,10 +28,11 @@ export function afterPaint(fn: () => void): () => void {
 /**
  * False until the screen has been painted once: the parts of a screen below its first view (and
  * their code) wait for it, so they do not hold up the first paint on a slow tablet
- * (docs/decisions/026-first-screen-requests.md).
+ * (docs/decisions/026-first-screen-requests.md). They render as a transition, which React does
+ * in slices, so a large section does not hold the page still while it renders.
  */
 export function useAfterPaint(): boolean {
   const [painted, setPainted] = useState(false);
-  useEffect(() => afterPaint(() => setPainted(true)), []);
+  useEffect(() => afterPaint(() => startTransition(() => setPainted(true))), []);
   return painted;
 }
