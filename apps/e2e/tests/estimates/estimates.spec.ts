@@ -76,7 +76,7 @@ test('the owner builds and sends an estimate; the customer approves it from the 
   await phone.goto(link!);
   await expect(phone.getByRole('heading', { level: 1, name: /Estimate EST-/ })).toBeVisible();
   await expect(phone.getByTestId('public-total')).toHaveText('£150.00');
-  await expect(phone.getByText('Tax at 20%')).toBeVisible();
+  await expect(phone.getByText('Tax at 20 %')).toBeVisible();
   await expect(phone.getByRole('link', { name: 'Jobs' })).toHaveCount(0); // no app chrome
   await phone.screenshot({ path: shot(testInfo, 'estimate-approval-phone.png'), fullPage: true });
   await expectNoSeriousViolations(phone, 'public approval page');

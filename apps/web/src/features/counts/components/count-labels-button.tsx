@@ -59,7 +59,7 @@ export function CountLabelsButton({ shopId, countId, binCount }: { shopId: strin
           {print.isError && <FormMessage>{errorMessage(print.error)}</FormMessage>}
           {file ? (
             <p role="status">
-              {file.labels} {file.labels === 1 ? 'label is' : 'labels are'} ready. Print at 100 % (actual size).
+              {file.labels} {file.labels === 1 ? 'label is' : 'labels are'} ready. Print at 100&nbsp;% (actual size).
             </p>
           ) : (
             <label className="flex min-h-touch items-center gap-3">

@@ -170,7 +170,7 @@ export function EstimatePanel({ shopId, jobId, assigneeIds }: { shopId: string; 
             <dd className="tabular-nums">{money(current.netMinor)}</dd>
             {current.taxByRate.map((r) => (
               <div key={r.ratePercent} className="contents">
-                <dt className="text-ink-muted">Tax at {r.ratePercent}%</dt>
+                <dt className="text-ink-muted">Tax at {r.ratePercent}&nbsp;%</dt>
                 <dd className="tabular-nums">{money(r.taxMinor)}</dd>
               </div>
             ))}

@@ -40,7 +40,7 @@ describe('the customer’s approval page', () => {
     });
     renderPage(token);
     expect(await screen.findByRole('heading', { name: 'Estimate EST-000007' })).toBeInTheDocument();
-    expect(screen.getByText('Tax at 20%')).toBeInTheDocument();
+    expect(screen.getByText('Tax at 20 %')).toBeInTheDocument();
     await userEvent.click(screen.getByRole('button', { name: 'Approve £108.00' }));
     expect(await screen.findByRole('status')).toHaveTextContent('the estimate is approved');
     expect(requests.find((r) => r.path === '/estimate-approval/approve')?.body).toEqual({ token, version: 2, grossMinor: 10800, name: 'Rowan Tillery' });

@@ -77,7 +77,7 @@ function EstimateForCustomer({ token, estimate: e, onDecided }: { token: string;
         <dd className="text-right tabular-nums">{money(e.netMinor)}</dd>
         {e.taxByRate.map((r) => (
           <div key={r.ratePercent} className="contents">
-            <dt>Tax at {r.ratePercent}%</dt>
+            <dt>Tax at {r.ratePercent}&nbsp;%</dt>
             <dd className="text-right tabular-nums">{money(r.taxMinor)}</dd>
           </div>
         ))}

@@ -23,7 +23,7 @@ const record = (over: Partial<ItemRecord>): ItemRecord => ({
 
 describe('recordSummary', () => {
   it('shows compression stored in kPa in the shop’s unit (NIST SP 811: 1 bar = 100 kPa; 1 psi = 6.894 757 kPa)', () => {
-    expect(recordSummary(item('compression'), record({ compressionKPa: [950, 920], compressionSpreadPercent: 3.16 }), 'bar')).toBe('#1 9.5\u00a0bar, #2 9.2\u00a0bar · spread 3.2 %');
+    expect(recordSummary(item('compression'), record({ compressionKPa: [950, 920], compressionSpreadPercent: 3.16 }), 'bar')).toBe('#1 9.5\u00a0bar, #2 9.2\u00a0bar · spread 3.2\u00a0%');
     expect(recordSummary(item('compression'), record({ compressionKPa: [689.4757293168361] }), 'psi')).toBe('#1 100\u00a0psi');
   });
   it('names a tyre made before 2000', () => {

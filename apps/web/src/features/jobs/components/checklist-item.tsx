@@ -14,7 +14,7 @@ export function recordSummary(item: Item, record: ItemRecord, unit: PressureUnit
   if (record.value !== null && item.unit) parts.push(`${record.value} ${item.unit}`);
   if (record.compressionKPa) {
     parts.push(record.compressionKPa.map((v, i) => `#${i + 1} ${formatMeasurement(compressionForDisplay(v, unit), unit)}`).join(', '));
-    if (record.compressionSpreadPercent !== null) parts.push(`spread ${record.compressionSpreadPercent.toFixed(1)} %`);
+    if (record.compressionSpreadPercent !== null) parts.push(`spread ${record.compressionSpreadPercent.toFixed(1)}\u00a0%`);
   }
   if (record.tyres) {
     parts.push(record.tyres.map((t) => `${t.position} ${t.code}: ${t.pre2000 ? 'made before 2000' : t.ageYears !== null ? `${t.ageYears.toFixed(1)} years` : '?'} (${t.verdict === 'unreadable' ? 'unreadable' : itemResultWords[t.verdict]})`).join('; '));
@@ -146,7 +146,7 @@ export function ChecklistItemCard({
           {item.kind === 'compression' && result !== 'na' && (
             <fieldset>
               <legend className="mb-2 font-bold">Compression per cylinder ({pressureUnit})</legend>
-              {item.min !== null && <p className="mb-2 text-sm text-ink-muted">Expected at least {formatMeasurement(compressionForDisplay(item.min, pressureUnit), pressureUnit)}; cylinders within about 10 % of each other (common practice).</p>}
+              {item.min !== null && <p className="mb-2 text-sm text-ink-muted">Expected at least {formatMeasurement(compressionForDisplay(item.min, pressureUnit), pressureUnit)}; cylinders within about 10&nbsp;% of each other (common practice).</p>}
               <div className="flex flex-wrap gap-2">
                 {readings.map((r, i) => (
                   <TextField key={i} label={`Cylinder ${i + 1}`} inputMode="decimal" value={r} fieldClassName="w-32" onChange={(e) => setReadings(readings.map((x, j) => (j === i ? e.target.value : x)))} />

@@ -146,7 +146,7 @@ export function PrintLabelsDialog({ shopId, source, open, onClose }: PrintLabels
         <div role="status" className="flex flex-col gap-2">
           <p className="font-bold">The labels are ready.</p>
           <p>
-            {chosenFormat ? countWords(chosenFormat, file.labels, file.pages) : `${file.labels} labels`}. Print at actual size (100 %, no “fit to page”) so the labels
+            {chosenFormat ? countWords(chosenFormat, file.labels, file.pages) : `${file.labels} labels`}. Print at actual size (100&nbsp;%, no “fit to page”) so the labels
             meet the sheet.
           </p>
         </div>

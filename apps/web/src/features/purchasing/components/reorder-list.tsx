@@ -16,7 +16,7 @@ function Explanation({ s }: { s: ReorderSuggestion }) {
   const facts: Array<[string, string]> = [
     ['Demand', `${two(s.demand.total)} over ${s.demand.windowDays} days: ${two(s.demand.meanPerDay)} a day${s.demand.sdPerDay === null ? '' : `, standard deviation ${two(s.demand.sdPerDay)}`}`],
     ['Lead time', `${two(s.leadTime.days)} days${s.leadTime.sdDays ? ` ± ${two(s.leadTime.sdDays)}` : ''}`],
-    ['Service level', `${two(s.serviceLevel * 100)} % → z = ${s.z.toFixed(3)}`],
+    ['Service level', `${two(s.serviceLevel * 100)}\u00a0% → z = ${s.z.toFixed(3)}`],
     ['Safety stock', two(s.safetyStock)],
     ['Reorder point', two(s.reorderPoint)],
     ['Economic order quantity', s.eoq === null ? 'not known (no unit cost)' : two(s.eoq)],
@@ -262,8 +262,8 @@ export function ReorderList({ shopId }: { shopId: string }) {
   return (
     <>
       <p className="mb-4 max-w-prose text-ink-muted">
-        Demand over the last {data.settings.demandWindowDays} days, a {two(data.settings.serviceLevel * 100)} % service level, ordering cost {money(data.settings.orderingCostMinor, data.settings.currency)} and holding
-        cost {two(data.settings.holdingCostRatePercent)} % a year.
+        Demand over the last {data.settings.demandWindowDays} days, a {two(data.settings.serviceLevel * 100)}&nbsp;% service level, ordering cost {money(data.settings.orderingCostMinor, data.settings.currency)} and holding
+        cost {two(data.settings.holdingCostRatePercent)}&nbsp;% a year.
       </p>
       {canSet && <ReorderSettings shopId={shopId} />}
       {problem && <FormMessage>{problem}</FormMessage>}

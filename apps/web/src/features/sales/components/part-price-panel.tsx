@@ -49,7 +49,7 @@ export function PartPricePanel({ shopId, partId, canSetListPrice }: { shopId: st
           <dd className="text-right font-bold">
             <Num>{money(price.unitMinor, currency)}</Num>
           </dd>
-          <dt className="col-span-2 text-ink-muted">From {basisWords[price.basis]}{price.markupPercent !== null ? ` (${price.markupPercent} %)` : ''}.</dt>
+          <dt className="col-span-2 text-ink-muted">From {basisWords[price.basis]}{price.markupPercent !== null ? ` (${price.markupPercent}\u00a0%)` : ''}.</dt>
           {price.unitCostMinor !== undefined && (
             <>
               <dt>Unit cost (moving average)</dt>

@@ -35,7 +35,7 @@ export function PricingSettings({ shopId, settings, canEdit }: { shopId: string;
   const submit = (e: FormEvent) => {
     e.preventDefault();
     const found: Record<string, string> = {};
-    if (!isPercent(defaultMarkup, 1000)) found['default'] = 'Enter a markup from 0 to 1000 %, such as 40.';
+    if (!isPercent(defaultMarkup, 1000)) found['default'] = 'Enter a markup from 0 to 1000 %, such as 40.';
     for (const o of origins) if (originMarkups[o]?.trim() && !isPercent(originMarkups[o]!, 1000)) found[`origin-${o}`] = 'Enter 0 to 1000, or leave empty.';
     categories.forEach((c, i) => {
       if (!c.name.trim()) found[`cat-name-${i}`] = 'Name the category as it is typed on parts.';

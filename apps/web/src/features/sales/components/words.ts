@@ -34,4 +34,4 @@ export function documentTitle(doc: Pick<InvoiceSummary, 'kind' | 'number'>): str
   return doc.number ? `Invoice ${doc.number}` : 'Draft invoice';
 }
 
-export const percent = (n: number) => `${Number(n.toFixed(3))} %`;
+export const percent = (n: number) => `${Number(n.toFixed(3))}\u00a0%`;

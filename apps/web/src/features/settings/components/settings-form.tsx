@@ -139,7 +139,7 @@ export function SettingsForm({ shopId, settings }: { shopId: string; settings: S
         <Select label="Pressure" name="pressureUnit" defaultValue={settings.pressureUnit} options={pressureUnits.map((u) => ({ value: u, label: pressureLabels[u] }))} hint="Tyre pressures and compression readings." error={e.pressureUnit} />
       </Group>
       <Group title="Reordering" description="How the reorder list balances running out against money tied up on the shelves.">
-        <TextField label="Service level" name="serviceLevel" inputMode="decimal" defaultValue={String(settings.serviceLevel)} hint="The chance of not running out while an order is on its way: 0.95 means 95 %. From 0.5 to 0.999." error={e.serviceLevel} />
+        <TextField label="Service level" name="serviceLevel" inputMode="decimal" defaultValue={String(settings.serviceLevel)} hint="The chance of not running out while an order is on its way: 0.95 means 95 %. From 0.5 to 0.999." error={e.serviceLevel} />
         <TextField label={`Cost of placing one order (${currency})`} name="orderingCostMinor" inputMode="decimal" defaultValue={minorToMajorText(settings.orderingCostMinor)} hint="Time and postage per purchase order." error={e.orderingCostMinor} />
         <TextField label="Holding cost (% of stock value a year)" name="holdingCostRatePercent" inputMode="decimal" defaultValue={String(settings.holdingCostRatePercent)} hint="Space, insurance and money tied up, e.g. 25." error={e.holdingCostRatePercent} />
       </Group>

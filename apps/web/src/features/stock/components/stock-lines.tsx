@@ -56,17 +56,28 @@ export function StockLines({ shopId }: { shopId: string }) {
       </Button>
     );
     return [
+      // Number with its description beneath, and bin with its condition beneath: the row's
+      // actions then fit beside the figures on a tablet in landscape.
       column.accessor('partNumber', {
-        header: 'Number',
+        header: 'Part',
         cell: (info) => (
-          <Link to={paths.shop.part.getHref(shopId, info.row.original.partId)} className="text-accent underline-offset-4 hover:underline">
-            <PartNumber>{info.getValue()}</PartNumber>
-          </Link>
+          <>
+            <Link to={paths.shop.part.getHref(shopId, info.row.original.partId)} className="text-accent underline-offset-4 hover:underline">
+              <PartNumber>{info.getValue()}</PartNumber>
+            </Link>
+            <span className="block text-sm text-ink-muted">{info.row.original.partDescription}</span>
+          </>
         ),
       }),
-      column.accessor('partDescription', { header: 'Description' }),
-      column.accessor('binCode', { header: 'Bin', cell: (info) => <PartNumber>{info.getValue()}</PartNumber> }),
-      column.accessor('condition', { header: 'Condition', cell: (info) => conditionLabel(info.getValue()) }),
+      column.accessor('binCode', {
+        header: 'Bin and condition',
+        cell: (info) => (
+          <>
+            <PartNumber>{info.getValue()}</PartNumber>
+            <span className="block text-sm text-ink-muted">{conditionLabel(info.row.original.condition)}</span>
+          </>
+        ),
+      }),
       column.accessor('onHand', { header: 'On hand', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
       column.accessor('held', { header: 'Held', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
       column.accessor('free', { header: 'Free', meta: { numeric: true }, cell: (info) => <Num className="font-bold">{info.getValue()}</Num> }),
@@ -84,7 +95,7 @@ export function StockLines({ shopId }: { shopId: string }) {
             ...(can.count ? [{ key: 'count', label: `Count ${where}`, onSelect: open('count') }] : []),
           ];
           return (
-            <div className="flex flex-wrap gap-1">
+            <div className="flex flex-nowrap gap-1">
               {can.issue && line.free > 0 && act(line, 'issue', 'Issue')}
               {can.hold && line.free > 0 && act(line, 'hold', 'Hold')}
               {more.length > 0 && <MenuButton label="More" variant="secondary" align="end" items={more} />}

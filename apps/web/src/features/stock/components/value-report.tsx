@@ -41,7 +41,7 @@ function GroupTable({ caption, groups, currency, keyLabel, mono = false }: { cap
               <Num>{money(g.valueMinor, currency)}</Num>
             </td>
             <td className="py-2 text-right">
-              <Num>{total ? `${Math.round((g.valueMinor / total) * 100)} %` : '—'}</Num>
+              <Num>{total ? `${Math.round((g.valueMinor / total) * 100)}\u00a0%` : '—'}</Num>
             </td>
           </tr>
         ))}

@@ -48,7 +48,7 @@ export function CostPanel({ shopId, vehicleId, formatMoney }: { shopId: string; 
               ) : (
                 <>
                   <Num>{formatMoney(costs.data.marginMinor)}</Num>
-                  {costs.data.marginPercent !== null && <span className="ml-1 font-normal text-ink-muted">({costs.data.marginPercent.toFixed(1)} %)</span>}
+                  {costs.data.marginPercent !== null && <span className="ml-1 font-normal text-ink-muted">({costs.data.marginPercent.toFixed(1)}&nbsp;%)</span>}
                 </>
               )}
             </dd>
