@@ -44,4 +44,13 @@ describe('MenuButton', () => {
     expect(picked).not.toHaveBeenCalled();
     expect(screen.getByRole('button', { name: 'Switch shop' })).toHaveFocus();
   });
+
+  it('shows a short label but is named in full for assistive technology', async () => {
+    const user = userEvent.setup();
+    render(<MenuButton label="Actions" accessibleLabel="Actions for Pat Example" items={[{ key: 'd', label: 'Deactivate Pat Example', onSelect: () => undefined }]} />);
+    const button = screen.getByRole('button', { name: 'Actions for Pat Example' });
+    expect(button).toHaveTextContent(/^Actions$/);
+    await user.click(button);
+    expect(screen.getByRole('menu', { name: 'Actions for Pat Example' })).toBeInTheDocument();
+  });
 });

@@ -15,8 +15,10 @@ export interface MenuItem {
 }
 
 export interface MenuButtonProps {
-  /** Visible text of the button; also its accessible name. */
+  /** Visible text of the button; also its accessible name unless `accessibleLabel` is given. */
   label: string;
+  /** A fuller name for assistive technology, e.g. "Actions for Pat Example" beside a visible "Actions". */
+  accessibleLabel?: string;
   items: MenuItem[];
   icon?: ReactNode;
   variant?: ButtonVariant;
@@ -31,7 +33,7 @@ export interface MenuButtonProps {
  * A button that opens a menu (WAI-ARIA menu button pattern): Enter, Space or the arrow keys
  * open it, arrows move, Home/End jump, Esc closes and returns focus to the button.
  */
-export function MenuButton({ label, items, icon, variant = 'secondary', align = 'end', side = 'bottom', className }: MenuButtonProps) {
+export function MenuButton({ label, accessibleLabel, items, icon, variant = 'secondary', align = 'end', side = 'bottom', className }: MenuButtonProps) {
   const [open, setOpen] = useState(false);
   const [active, setActive] = useState(0);
   const buttonRef = useRef<HTMLButtonElement>(null);
@@ -109,6 +111,7 @@ export function MenuButton({ label, items, icon, variant = 'secondary', align = 
         ref={buttonRef}
         type="button"
         aria-haspopup="menu"
+        aria-label={accessibleLabel}
         aria-expanded={open}
         aria-controls={open ? menuId : undefined}
         className={buttonClasses(variant, 'sm')}
@@ -123,7 +126,7 @@ export function MenuButton({ label, items, icon, variant = 'secondary', align = 
         <div
           id={menuId}
           role="menu"
-          aria-label={label}
+          aria-label={accessibleLabel ?? label}
           onKeyDown={onMenuKeyDown}
           className={cn(
             'absolute z-40 min-w-64 rounded-md border-2 border-line bg-surface p-1 text-ink shadow-raised',

@@ -17,6 +17,7 @@ export function OrdersList({ shopId }: { shopId: string }) {
     () => [
       column.accessor('reference', {
         header: 'Order',
+        meta: { cellClassName: 'whitespace-nowrap' },
         cell: (info) => (
           <Link to={paths.shop.purchasingOrder.getHref(shopId, info.row.original.id)} className="font-mono text-accent">
             {info.getValue()}
@@ -27,7 +28,7 @@ export function OrdersList({ shopId }: { shopId: string }) {
       column.accessor('status', { header: 'State', cell: (info) => <StatusPill status={orderStatusWords[info.getValue()].status} label={orderStatusWords[info.getValue()].label} /> }),
       column.accessor('lineCount', { header: 'Lines', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
       column.accessor('totalMinor', { header: 'Total', meta: { numeric: true }, cell: (info) => <Num>{money(info.getValue(), info.row.original.currency)}</Num> }),
-      column.accessor('createdAt', { header: 'Written', cell: (info) => info.getValue().slice(0, 10) }),
+      column.accessor('createdAt', { header: 'Written', meta: { cellClassName: 'whitespace-nowrap' }, cell: (info) => info.getValue().slice(0, 10) }),
     ],
     [shopId],
   );

@@ -53,15 +53,18 @@ export function StaffScreen({ shopId, currency, myUserId }: StaffScreenProps) {
   const memberColumns = useMemo(
     () => [
       memberColumn.accessor('name', {
-        header: 'Name',
+        header: 'Name and e-mail',
         cell: (info) => (
-          <span className="font-bold">
-            {info.getValue()}
-            {info.row.original.userId === myUserId && <span className="font-normal text-ink-muted"> (you)</span>}
-          </span>
+          <>
+            <span className="font-bold">
+              {info.getValue()}
+              {info.row.original.userId === myUserId && <span className="font-normal text-ink-muted"> (you)</span>}
+            </span>
+            {/* The address under the name: the row's role, limit and actions then fit on a tablet. */}
+            <span className="block text-sm break-all text-ink-muted">{info.row.original.email}</span>
+          </>
         ),
       }),
-      memberColumn.accessor('email', { header: 'E-mail', cell: (info) => <span className="break-all">{info.getValue()}</span> }),
       memberColumn.accessor((m) => roleLabels[m.role], { id: 'role', header: 'Role', cell: (info) => <Badge tone={info.row.original.role === 'owner' ? 'accent' : 'neutral'} className="whitespace-nowrap">{info.getValue()}</Badge> }),
       memberColumn.accessor('spendingLimitMinor', {
         header: 'Spending limit',
@@ -94,7 +97,7 @@ export function StaffScreen({ shopId, currency, myUserId }: StaffScreenProps) {
                 { key: 'deactivate', label: 'Deactivate', onSelect: () => setAction({ kind: 'deactivate', member: m }) },
               ]
             : [{ key: 'reactivate', label: 'Reactivate', onSelect: () => setAction({ kind: 'reactivate', member: m }) }];
-          return <MenuButton label={`Actions for ${m.name}`} items={items} />;
+          return <MenuButton label="Actions" accessibleLabel={`Actions for ${m.name}`} items={items} />;
         },
       }),
     ],

@@ -35,18 +35,34 @@ export function HoldsList({ shopId, holds: given }: { shopId: string; holds?: Ho
           </Link>
         ),
       }),
-      column.accessor('binCode', { header: 'Bin', cell: (info) => <PartNumber>{info.getValue()}</PartNumber> }),
-      column.accessor('condition', { header: 'Condition', cell: (info) => conditionLabel(info.getValue()) }),
+      // Condition under the bin and the person under the purpose: the row's actions then fit on a
+      // tablet in landscape.
+      column.accessor('binCode', {
+        header: 'Bin and condition',
+        cell: (info) => (
+          <>
+            <PartNumber>{info.getValue()}</PartNumber>
+            <span className="block text-sm text-ink-muted">{conditionLabel(info.row.original.condition)}</span>
+          </>
+        ),
+      }),
       column.accessor('quantity', { header: 'Held', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
-      column.accessor('purpose', { header: 'Held for' }),
-      column.accessor('createdByName', { header: 'By', cell: (info) => info.getValue() ?? '—' }),
+      column.accessor('purpose', {
+        header: 'Held for',
+        cell: (info) => (
+          <>
+            {info.getValue()}
+            {info.row.original.createdByName && <span className="block text-sm text-ink-muted">by {info.row.original.createdByName}</span>}
+          </>
+        ),
+      }),
       column.display({
         id: 'actions',
         header: 'Actions',
         cell: (info) => {
           const hold = info.row.original;
           return (
-            <div className="flex flex-wrap gap-1">
+            <div className="flex flex-nowrap gap-1">
               {canIssue && (
                 <Button size="sm" variant="secondary" aria-label={`Issue ${hold.partNumber} held for ${hold.purpose}`} onClick={() => setIssuing(hold)}>
                   Issue

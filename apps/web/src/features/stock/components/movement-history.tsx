@@ -54,8 +54,23 @@ export function MovementHistory({ shopId }: { shopId: string }) {
 
   const columns = useMemo(
     () => [
-      column.accessor('occurredAt', { header: 'When', enableSorting: false, cell: (info) => <Num>{new Date(info.getValue()).toLocaleDateString('en-GB', { day: '2-digit', month: 'short', year: 'numeric' })}</Num> }),
-      column.accessor('kind', { header: 'What', enableSorting: false, cell: (info) => <span className="font-bold">{movementLabels[info.getValue()]}</span> }),
+      column.accessor('occurredAt', { header: 'When', enableSorting: false, meta: { cellClassName: 'whitespace-nowrap' }, cell: (info) => new Date(info.getValue()).toLocaleDateString('en-GB', { day: '2-digit', month: 'short', year: 'numeric' }) }),
+      // The detail (reason, reference, note, who) under what happened rather than in a column of
+      // its own: the table then fits a tablet in landscape.
+      column.accessor('kind', {
+        header: 'What',
+        enableSorting: false,
+        cell: (info) => {
+          const m = info.row.original;
+          const detail = [m.serial && `No. ${m.serial}`, m.reason, m.reference, m.note, m.userName && `by ${m.userName}`].filter(Boolean).join(' · ');
+          return (
+            <>
+              <span className="font-bold">{movementLabels[info.getValue()]}</span>
+              {detail && <span className="block min-w-32 text-sm text-ink-muted">{detail}</span>}
+            </>
+          );
+        },
+      }),
       column.accessor('partNumber', {
         header: 'Part',
         enableSorting: false,
@@ -65,32 +80,27 @@ export function MovementHistory({ shopId }: { shopId: string }) {
           </Link>
         ),
       }),
+      // Condition under the bin: the table fits a tablet in landscape with room for the detail.
       column.accessor('binCode', {
-        header: 'Bin',
+        header: 'Bin and condition',
         enableSorting: false,
         cell: (info) => (
-          <PartNumber>
-            {info.getValue()}
-            {info.row.original.toBinCode ? ` → ${info.row.original.toBinCode}` : ''}
-          </PartNumber>
+          <>
+            <PartNumber>
+              {info.getValue()}
+              {info.row.original.toBinCode ? ` → ${info.row.original.toBinCode}` : ''}
+            </PartNumber>
+            <span className="block text-sm text-ink-muted">{conditionLabel(info.row.original.condition)}</span>
+          </>
         ),
       }),
-      column.accessor('condition', { header: 'Condition', enableSorting: false, cell: (info) => conditionLabel(info.getValue()) }),
       column.accessor('quantityDelta', {
         header: 'Quantity',
         enableSorting: false,
         meta: { numeric: true },
         cell: (info) => <Num>{info.row.original.kind === 'moved' ? String(-info.getValue()) : info.row.original.kind === 'counted' ? `${info.row.original.countedQuantity ?? ''} (${signed(info.getValue())})` : signed(info.getValue())}</Num>,
       }),
-      column.accessor('valueChangeMinor', { header: 'Value', enableSorting: false, meta: { numeric: true }, cell: (info) => <Num>{money(info.getValue(), currency)}</Num> }),
-      column.display({
-        id: 'detail',
-        header: 'Detail',
-        cell: (info) => {
-          const m = info.row.original;
-          return <span className="text-ink-muted">{[m.serial && `No. ${m.serial}`, m.reason, m.reference, m.note, m.userName && `by ${m.userName}`].filter(Boolean).join(' · ')}</span>;
-        },
-      }),
+      column.accessor('valueChangeMinor', { header: 'Value', enableSorting: false, meta: { numeric: true, cellClassName: 'whitespace-nowrap' }, cell: (info) => <Num>{money(info.getValue(), currency)}</Num> }),
     ],
     [shopId, currency],
   );
