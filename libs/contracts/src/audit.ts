@@ -1,6 +1,8 @@
 import { z } from 'zod';
 import { idSchema } from './common';
 
+export * from './constants/audit';
+
 /** A date (`2026-01-15`) or a full ISO date-time. */
 const dateOrDateTime = z.union([z.iso.date(), z.iso.datetime({ offset: true })]);
 

@@ -1,4 +1,5 @@
 import { randomUUID } from 'node:crypto';
+import type { AuditAction, AuditEntity } from '@tappet/contracts';
 import type { EntityManager } from 'typeorm';
 import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity.js';
 import { AuditEventEntity, type AuditChanges } from './audit.entity';
@@ -13,9 +14,9 @@ export interface AuditActor {
 export interface AuditInput {
   shopId: string | null;
   actor: AuditActor;
-  /** Dotted verb, e.g. `shop.updated`, `auth.signed_in`. */
-  action: string;
-  entity: string;
+  /** Dotted verb, e.g. `shop.updated`, `auth.signed_in`: one of the contracts' auditActionWords, so the audit screen has words for it. */
+  action: AuditAction;
+  entity: AuditEntity;
   entityId: string | null;
   changes?: AuditChanges;
   at: Date;

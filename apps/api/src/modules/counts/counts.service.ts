@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { In, type EntityManager } from 'typeorm';
-import { maxCountLines, type CountDetail, type CountEntryParsed, type CountLine, type CountStartParsed, type CountStatus, type CountSummary, type StockCondition, type VarianceLine, type VarianceReport } from '@tappet/contracts';
+import { maxCountLines, type AuditAction, type CountDetail, type CountEntryParsed, type CountLine, type CountStartParsed, type CountStatus, type CountSummary, type StockCondition, type VarianceLine, type VarianceReport } from '@tappet/contracts';
 import { shopScoped } from '../../db/tenant-repository';
 import type { Database } from '../../db/write-lock';
 import type { Clock } from '../../lib/clock';
@@ -102,7 +102,7 @@ function requireOpen(count: StockCountRow): void {
   if (count.status !== 'open') throw stockConflict('count_closed', `Count ${count.number} was already ${count.status}.`, { status: count.status });
 }
 
-async function audit(manager: EntityManager, shopId: string, ctx: StockWriteContext, action: string, countId: string, changes: Record<string, { before: unknown; after: unknown }>): Promise<void> {
+async function audit(manager: EntityManager, shopId: string, ctx: StockWriteContext, action: AuditAction, countId: string, changes: Record<string, { before: unknown; after: unknown }>): Promise<void> {
   await recordAudit(manager, { shopId, actor: ctx.actor, action, entity: 'stock_count', entityId: countId, changes, at: ctx.at });
 }
 

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import type { EntityManager } from 'typeorm';
 import type { z } from 'zod';
 import { formatMoney } from '@tappet/domain';
-import type { orderInputSchema, orderLineInputSchema, orderUpdateSchema, PurchaseOrder, PurchaseOrderStatus, receiptInputSchema } from '@tappet/contracts';
+import type { AuditAction, orderInputSchema, orderLineInputSchema, orderUpdateSchema, PurchaseOrder, PurchaseOrderStatus, receiptInputSchema } from '@tappet/contracts';
 import { shopScoped } from '../../db/tenant-repository';
 import type { Database } from '../../db/write-lock';
 import type { Clock } from '../../lib/clock';
@@ -215,7 +215,7 @@ export function createOrdersService(deps: { db: Database; clock: Clock; mailer: 
     return Number(row?.n ?? 1);
   }
 
-  async function audit(manager: EntityManager, shopId: string, actor: AuditActor, action: string, orderId: string, fields: Record<string, unknown>) {
+  async function audit(manager: EntityManager, shopId: string, actor: AuditActor, action: AuditAction, orderId: string, fields: Record<string, unknown>) {
     const changes = Object.fromEntries(Object.entries(fields).filter(([, v]) => v !== undefined).map(([k, v]) => [k, { before: null, after: v }]));
     await recordAudit(manager, { shopId, actor, action, entity: 'purchase_order', entityId: orderId, changes, at: clock.now() });
   }

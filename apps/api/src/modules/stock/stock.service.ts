@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import type { EntityManager } from 'typeorm';
 import type { z } from 'zod';
 import { closingPosition, normalisePartNumber, ValuationError, type LineageGraph, type StockMovement } from '@tappet/domain';
-import type { Bin, BinInput, binInputSchema, BinUpdate, binUpdateSchema, Hold, MovementKind, MovementWriteResponse, PartStockResponse, StockCondition, ValuationMethod } from '@tappet/contracts';
+import type { AuditAction, AuditEntity, Bin, BinInput, binInputSchema, BinUpdate, binUpdateSchema, Hold, MovementKind, MovementWriteResponse, PartStockResponse, StockCondition, ValuationMethod } from '@tappet/contracts';
 import { shopScoped } from '../../db/tenant-repository';
 import type { Database } from '../../db/write-lock';
 import type { Clock } from '../../lib/clock';
@@ -130,7 +130,7 @@ async function appendMovement(manager: EntityManager, shopId: string, fields: Mo
   return row;
 }
 
-async function audit(manager: EntityManager, shopId: string, ctx: StockWriteContext, action: string, entity: string, entityId: string, fields: Record<string, unknown>): Promise<void> {
+async function audit(manager: EntityManager, shopId: string, ctx: StockWriteContext, action: AuditAction, entity: AuditEntity, entityId: string, fields: Record<string, unknown>): Promise<void> {
   const changes = Object.fromEntries(Object.entries(fields).filter(([, v]) => v !== undefined && v !== null).map(([k, v]) => [k, { before: null, after: v }]));
   await recordAudit(manager, { shopId, actor: ctx.actor, action, entity, entityId, changes, at: ctx.at });
 }

@@ -9,7 +9,7 @@ import { useHolds } from '../api/get-holds';
 import { useValuation } from '../api/get-valuation';
 import { releaseHold, useStockMutation } from '../api/write-stock';
 import { StockActionDialog } from './stock-action-dialog';
-import { conditionLabel } from './words';
+import { BinWithCondition } from './bin-with-condition';
 
 const column = createColumnHelper<Hold>();
 
@@ -39,12 +39,7 @@ export function HoldsList({ shopId, holds: given }: { shopId: string; holds?: Ho
       // tablet in landscape.
       column.accessor('binCode', {
         header: 'Bin and condition',
-        cell: (info) => (
-          <>
-            <PartNumber>{info.getValue()}</PartNumber>
-            <span className="block text-sm text-ink-muted">{conditionLabel(info.row.original.condition)}</span>
-          </>
-        ),
+        cell: (info) => <BinWithCondition code={info.getValue()} condition={info.row.original.condition} />,
       }),
       column.accessor('quantity', { header: 'Held', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
       column.accessor('purpose', {

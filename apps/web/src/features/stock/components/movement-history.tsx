@@ -7,7 +7,8 @@ import { errorMessage } from '../../../lib/api-client';
 import { useBins } from '../api/get-bins';
 import { useMovements } from '../api/get-movements';
 import { useValuation } from '../api/get-valuation';
-import { conditionLabel, money, movementLabels, signed } from './words';
+import { BinWithCondition } from './bin-with-condition';
+import { money, movementLabels, signed } from './words';
 
 const column = createColumnHelper<Movement>();
 const PAGE_SIZE = 50;
@@ -84,15 +85,7 @@ export function MovementHistory({ shopId }: { shopId: string }) {
       column.accessor('binCode', {
         header: 'Bin and condition',
         enableSorting: false,
-        cell: (info) => (
-          <>
-            <PartNumber>
-              {info.getValue()}
-              {info.row.original.toBinCode ? ` → ${info.row.original.toBinCode}` : ''}
-            </PartNumber>
-            <span className="block text-sm text-ink-muted">{conditionLabel(info.row.original.condition)}</span>
-          </>
-        ),
+        cell: (info) => <BinWithCondition code={info.getValue()} condition={info.row.original.condition} to={info.row.original.toBinCode} />,
       }),
       column.accessor('quantityDelta', {
         header: 'Quantity',

@@ -9,7 +9,8 @@ import { useBins } from '../api/get-bins';
 import { useStock } from '../api/get-stock';
 import { useValuation } from '../api/get-valuation';
 import { StockActionDialog, type StockAction, type StockActionPreset } from './stock-action-dialog';
-import { conditionLabel, conditionOptions } from './words';
+import { BinWithCondition } from './bin-with-condition';
+import { conditionOptions } from './words';
 
 const column = createColumnHelper<StockLine>();
 const PAGE = 200;
@@ -71,12 +72,7 @@ export function StockLines({ shopId }: { shopId: string }) {
       }),
       column.accessor('binCode', {
         header: 'Bin and condition',
-        cell: (info) => (
-          <>
-            <PartNumber>{info.getValue()}</PartNumber>
-            <span className="block text-sm text-ink-muted">{conditionLabel(info.row.original.condition)}</span>
-          </>
-        ),
+        cell: (info) => <BinWithCondition code={info.getValue()} condition={info.row.original.condition} />,
       }),
       column.accessor('onHand', { header: 'On hand', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
       column.accessor('held', { header: 'Held', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
