@@ -126,7 +126,13 @@ export const jobSummarySchema = z.object({
   completedAt: z.string().nullable(),
 });
 export type JobSummary = z.infer<typeof jobSummarySchema>;
-export const jobListResponseSchema = z.object({ jobs: z.array(jobSummarySchema) });
+/** The most jobs one list answer holds, newest first: the vehicle's page lists all of its own. */
+export const jobListLimit = 500;
+export const jobListResponseSchema = z.object({
+  jobs: z.array(jobSummarySchema),
+  /** True when more jobs match than the answer holds (the newest `jobListLimit`). */
+  truncated: z.boolean().optional(),
+});
 export type JobListResponse = z.infer<typeof jobListResponseSchema>;
 
 // ── Checklist templates ───────────────────────────────────────────────────────────────────────

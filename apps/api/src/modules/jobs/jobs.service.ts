@@ -21,6 +21,7 @@ import {
   type jobHoldInputSchema,
   type jobInputSchema,
   type jobIssueInputSchema,
+  jobListLimit,
   type jobListQuerySchema,
   type jobReturnInputSchema,
   type jobStatusMoveSchema,
@@ -399,7 +400,7 @@ export function createJobsService(deps: { db: Database; clock: Clock; files: Fil
     },
 
     /** Jobs, newest first: the board (all) or one person's (assignee). Done and cancelled only on request. */
-    async list(shopId: string, filters: JobListFilters, callerId: string | null): Promise<{ jobs: JobSummary[] }> {
+    async list(shopId: string, filters: JobListFilters, callerId: string | null): Promise<{ jobs: JobSummary[]; truncated: boolean }> {
       const qb = db.reader.createQueryBuilder(JobEntity, 'j').where('j.shopId = :shopId', { shopId });
       if (filters.status) qb.andWhere('j.status = :status', { status: filters.status });
       else if (!filters.closed) qb.andWhere('j.status NOT IN (:...closed)', { closed: closedStatuses });
@@ -408,8 +409,9 @@ export function createJobsService(deps: { db: Database; clock: Clock; files: Fil
       if (filters.assignee) {
         qb.andWhere('EXISTS (SELECT 1 FROM job_assignees a WHERE a.shop_id = j.shop_id AND a.job_id = j.id AND a.user_id = :assignee)', { assignee: assignee ?? '' });
       }
-      const rows = await qb.orderBy('j.number', 'DESC').limit(500).getMany();
-      return { jobs: await summaries(shopId, rows) };
+      // One more than the limit, to say whether the list was cut short.
+      const rows = await qb.orderBy('j.number', 'DESC').limit(jobListLimit + 1).getMany();
+      return { jobs: await summaries(shopId, rows.slice(0, jobListLimit)), truncated: rows.length > jobListLimit };
     },
 
     detail,

@@ -1,3 +1,5 @@
+import { randomUUID } from 'node:crypto';
+import { jobListLimit } from '@tappet/contracts';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AuditEventEntity } from '../../audit/audit.entity';
 import { createTestContext, csrf, seedShop, signedInAgent, type TestContext } from '../../../test-support/test-app';
@@ -19,6 +21,7 @@ let outsider: Agent;
 let vehicles: VehicleFixture;
 let stock: StockFixture;
 let otherVehicleId: string;
+let otherShopId: string;
 let templates: Array<{ id: string; name: string; items: Array<{ key: string; safety: boolean; kind: string }> }>;
 
 beforeAll(async () => {
@@ -28,6 +31,7 @@ beforeAll(async () => {
   shopId = shop.shop.id;
   ids = { owner: shop.byRole.owner.id, mechanic: shop.byRole.mechanic.id, otherOwner: other.byRole.owner.id };
   vehicles = await seedVehicleFixture(ctx.db, shopId, ctx.env.uploadsDir, 2);
+  otherShopId = other.shop.id;
   otherVehicleId = (await seedVehicleFixture(ctx.db, other.shop.id, ctx.env.uploadsDir, 0)).vehicleId;
   stock = await seedStockFixture(ctx.db, shopId, 0);
   owner = await signedInAgent(ctx.app, shop.byRole.owner.email, shop.password);
@@ -100,6 +104,36 @@ describe('jobs on a vehicle', () => {
     expect(myIds).not.toContain(notMine.id);
     const board = await owner.get(url());
     expect(board.body.jobs.map((j: { id: string }) => j.id)).toEqual(expect.arrayContaining([mine.id, notMine.id]));
+  });
+
+  it('says when more jobs match than one list holds, and lists the newest', async () => {
+    // The other shop has no jobs of its own tests: fill it past the limit in one write.
+    const at = new Date('2026-11-01T09:00:00Z');
+    const rows = Array.from({ length: jobListLimit + 1 }, (_, i) => ({
+      id: randomUUID(),
+      shopId: otherShopId,
+      number: i + 1,
+      vehicleId: otherVehicleId,
+      title: `Service ${i + 1}`,
+      customerRequest: '',
+      status: 'open' as const,
+      dueOn: null,
+      notes: null,
+      createdByUserId: null,
+      createdAt: at,
+      updatedAt: at,
+      startedAt: null,
+      completedAt: null,
+    }));
+    await ctx.db.write((m) => m.insert(JobEntity, rows));
+    const full = await outsider.get(`/api/shops/${otherShopId}/jobs`);
+    expect(full.status).toBe(200);
+    expect(full.body.truncated).toBe(true);
+    expect(full.body.jobs).toHaveLength(jobListLimit);
+    expect(full.body.jobs[0].number).toBe(jobListLimit + 1);
+    // Narrowed below the limit, the answer is whole.
+    const few = await owner.get(url());
+    expect(few.body.truncated).toBe(false);
   });
 
   it('lets a mechanic change only jobs assigned to them (CASL condition), not reassign them; a viewer or buyer only reads', async () => {

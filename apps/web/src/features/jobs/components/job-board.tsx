@@ -1,4 +1,4 @@
-import type { JobSummary } from '@tappet/contracts';
+import { jobListLimit, type JobSummary } from '@tappet/contracts';
 import { EmptyState, ErrorState, LoadingState } from '@tappet/ui';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
@@ -52,22 +52,29 @@ export function JobBoard({ shopId, params, emptyHint }: { shopId: string; params
   if (list.length === 0) return <EmptyState title="No jobs here yet">{emptyHint}</EmptyState>;
   const columns = boardColumns.filter((s) => list.some((j) => j.status === s));
   return (
-    <div className="grid gap-6 xl:grid-cols-3">
-      {columns.map((status) => {
-        const inColumn = list.filter((j) => j.status === status);
-        return (
-          <section key={status} aria-labelledby={`jobs-${status}`}>
-            <h2 id={`jobs-${status}`} className="mb-2 text-lg font-bold">
-              {jobStatusWords[status]} <span className="text-ink-muted">({inColumn.length})</span>
-            </h2>
-            <ul className="flex flex-col gap-3">
-              {inColumn.map((job) => (
-                <JobCard key={job.id} shopId={shopId} job={job} />
-              ))}
-            </ul>
-          </section>
-        );
-      })}
-    </div>
+    <>
+      {jobs.data.truncated && (
+        <p role="status" className="mb-4 rounded-md border-2 border-advise bg-advise-soft p-3">
+          Showing the newest {jobListLimit} jobs. Older ones are on their vehicles’ pages{params.closed ? ', or hide the done and cancelled jobs to see fewer' : ''}.
+        </p>
+      )}
+      <div className="grid gap-6 xl:grid-cols-3">
+        {columns.map((status) => {
+          const inColumn = list.filter((j) => j.status === status);
+          return (
+            <section key={status} aria-labelledby={`jobs-${status}`}>
+              <h2 id={`jobs-${status}`} className="mb-2 text-lg font-bold">
+                {jobStatusWords[status]} <span className="text-ink-muted">({inColumn.length})</span>
+              </h2>
+              <ul className="flex flex-col gap-3">
+                {inColumn.map((job) => (
+                  <JobCard key={job.id} shopId={shopId} job={job} />
+                ))}
+              </ul>
+            </section>
+          );
+        })}
+      </div>
+    </>
   );
 }
