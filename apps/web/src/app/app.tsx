@@ -1,13 +1,10 @@
-import { useState } from 'react';
+import type { QueryClient } from '@tanstack/react-query';
 import { RouterProvider } from 'react-router-dom';
-import { createQueryClient } from '../lib/query-client';
 import { AppProvider } from './provider';
-import { createAppRouter } from './router';
+import type { createAppRouter } from './router';
 
-/** The whole app: one QueryClient and one router for the page's lifetime. */
-export function App() {
-  const [queryClient] = useState(createQueryClient);
-  const [router] = useState(() => createAppRouter(queryClient));
+/** The whole app: one QueryClient and one router for the page's lifetime (made in main.tsx). */
+export function App({ queryClient, router }: { queryClient: QueryClient; router: ReturnType<typeof createAppRouter> }) {
   return (
     <AppProvider queryClient={queryClient}>
       <RouterProvider router={router} />

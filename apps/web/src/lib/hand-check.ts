@@ -18,8 +18,22 @@ export function text(v: unknown): string {
 export function textOrNull(v: unknown): string | null {
   return v === null ? null : text(v);
 }
+
+// The pattern zod's z.uuid() uses (RFC 9562 versions 1–8, plus the nil and max ids).
+const uuid = /^([0-9a-fA-F]{8}-[0-9a-fA-F]{4}-[1-8][0-9a-fA-F]{3}-[89abAB][0-9a-fA-F]{3}-[0-9a-fA-F]{12}|00000000-0000-0000-0000-000000000000|ffffffff-ffff-ffff-ffff-ffffffffffff)$/;
+
+/** zod's z.uuid(). */
+export function id(v: unknown): string {
+  if (!uuid.test(text(v))) throw new Mismatch();
+  return v as string;
+}
 export function flag(v: unknown): boolean {
   if (typeof v !== 'boolean') throw new Mismatch();
+  return v;
+}
+/** zod's z.number(): a finite number. */
+export function finite(v: unknown): number {
+  if (typeof v !== 'number' || !Number.isFinite(v)) throw new Mismatch();
   return v;
 }
 /** zod's z.number().int(): a safe integer. */
@@ -33,6 +47,12 @@ export function integerOrNull(v: unknown): number | null {
 export function oneOf<T extends string>(values: readonly T[], v: unknown): T {
   if (!(values as readonly unknown[]).includes(v)) throw new Mismatch();
   return v as T;
+}
+
+/** zod's z.array(item). */
+export function list<T>(v: unknown, item: (v: unknown) => T): T[] {
+  if (!Array.isArray(v)) throw new Mismatch();
+  return v.map((x) => item(x));
 }
 
 /** A reader (which throws Mismatch) as a schema with zod's `safeParse`. */

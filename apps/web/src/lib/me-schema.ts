@@ -1,6 +1,6 @@
 import type { MeWithActiveShop } from '@tappet/contracts';
 import { shopRoles } from '@tappet/contracts';
-import { flag, handChecked, integerOrNull, Mismatch, oneOf, record, text, textOrNull } from './hand-check';
+import { flag, handChecked, id, integerOrNull, Mismatch, oneOf, record, text, textOrNull } from './hand-check';
 
 // /api/me's answer, checked by hand rather than with the contract's zod schema: /api/me is the first
 // request of every signed-in screen, and its check would otherwise make zod (27 KB gzipped, and its
@@ -8,14 +8,6 @@ import { flag, handChecked, integerOrNull, Mismatch, oneOf, record, text, textOr
 // me-schema.test.ts holds it to the contract's meWithActiveShopSchema, case by case.
 
 type Membership = MeWithActiveShop['memberships'][number];
-
-// The pattern zod's z.uuid() uses (RFC 9562 versions 1–8, plus the nil and max ids).
-const uuid = /^([0-9a-fA-F]{8}-[0-9a-fA-F]{4}-[1-8][0-9a-fA-F]{3}-[89abAB][0-9a-fA-F]{3}-[0-9a-fA-F]{12}|00000000-0000-0000-0000-000000000000|ffffffff-ffff-ffff-ffff-ffffffffffff)$/;
-
-function id(v: unknown): string {
-  if (!uuid.test(text(v))) throw new Mismatch();
-  return v as string;
-}
 
 function membership(v: unknown): Membership {
   const m = record(v);

@@ -3,7 +3,6 @@ import { Button, IconAdvise, IconOk, LoadingState, PartNumber } from '@tappet/ui
 import { lazy, Suspense, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
-import { useAfterPaint } from '../../../lib/use-after-paint';
 import { PartStatusPill } from './part-badges';
 import { Section } from './part-section';
 import { originWords, problemTitles, problemWords, quantityWords } from './words';
@@ -68,6 +67,8 @@ export interface PartViewProps {
   detail: PartDetailResponse;
   lineage: { data?: LineageGraphResponse; isPending: boolean; error: unknown; refetch: () => void };
   canEdit: boolean;
+  /** False until the part has been painted: the sections below (and their code) wait for it. */
+  showSections: boolean;
 }
 
 // The edit form (checked with the contracts' schemas, so zod) loads when first opened: the part
@@ -80,10 +81,9 @@ const PartSections = lazy(() => import('./part-sections').then((m) => ({ default
 const sectionsLoading = <LoadingState label="Loading the lineage, links and fitment…" />;
 
 /** Everything the shop knows about one part: details, current number, problems, lineage, links and fitment. */
-export function PartView({ shopId, detail, lineage, canEdit }: PartViewProps) {
+export function PartView({ shopId, detail, lineage, canEdit, showSections }: PartViewProps) {
   const { part, problems } = detail;
   const [editingPart, setEditingPart] = useState(false);
-  const painted = useAfterPaint();
 
   return (
     <div className="flex flex-col gap-6">
@@ -155,7 +155,7 @@ export function PartView({ shopId, detail, lineage, canEdit }: PartViewProps) {
         </dl>
       </Section>
 
-      {painted ? (
+      {showSections ? (
         <Suspense fallback={sectionsLoading}>
           <PartSections shopId={shopId} detail={detail} lineage={lineage} canEdit={canEdit} />
         </Suspense>

@@ -1,5 +1,5 @@
 import { ErrorState, LoadingState, PartNumber } from '@tappet/ui';
-import { lazy, Suspense } from 'react';
+import { lazy, Suspense, useRef } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { NotFoundContent } from '../../../../../components/errors/not-found';
 import { paths } from '../../../../../config/paths';
@@ -31,7 +31,9 @@ export default function PartRoute() {
   const canReadPurchasing = useCan('read', 'Supplier', { shopId });
   // Sales (issue 12): the sell price for everyone who reads parts; cost and margin only where the API gives them.
   const canSetListPrice = useCan('update', 'Settings', { shopId });
-  const painted = useAfterPaint();
+  // The rest of the page waits until the part's heading is on screen.
+  const heading = useRef<HTMLSpanElement>(null);
+  const painted = useAfterPaint(heading);
   useDocumentTitle(part.data ? `${part.data.part.number} · Catalogue` : 'Part');
 
   const back = (
@@ -56,7 +58,9 @@ export default function PartRoute() {
         <div className="flex flex-wrap items-start justify-between gap-3">
           <h1 className="flex flex-wrap items-baseline gap-x-4 gap-y-1">
             <PartNumber className="text-xl font-bold">{p.number}</PartNumber>
-            <span className="text-lg font-bold">{p.description}</span>
+            <span ref={heading} elementtiming="part-heading" className="text-lg font-bold">
+              {p.description}
+            </span>
           </h1>
           <PrintLabelsButton shopId={shopId} source={{ kind: 'parts', parts: [{ id: p.id, number: p.number }] }} label="Print label" />
         </div>
@@ -65,6 +69,7 @@ export default function PartRoute() {
         shopId={shopId}
         detail={part.data}
         canEdit={canEdit}
+        showSections={painted}
         lineage={{ data: lineage.data, isPending: lineage.isPending, error: lineage.error, refetch: () => void lineage.refetch() }}
       />
       {painted ? (
