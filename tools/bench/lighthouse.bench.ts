@@ -60,8 +60,8 @@ export async function runLighthouseBench(): Promise<Figure[]> {
     ];
     const figures: Figure[] = [];
     // A single Lighthouse run swings by several points on a shared machine: each page and preset
-    // runs LIGHTHOUSE_RUNS times (3 unless told) and the figures are the median run's, by score.
-    const runs = Math.max(1, Number(process.env.LIGHTHOUSE_RUNS ?? 3));
+    // runs LIGHTHOUSE_RUNS times (5 unless told) and the figures are the median run's, by score.
+    const runs = Math.max(1, Number(process.env.LIGHTHOUSE_RUNS ?? 5));
     const presets = (process.env.LIGHTHOUSE_PRESETS ?? 'mobile,desktop').split(',');
     for (const page of pages) {
       for (const [preset, config] of [

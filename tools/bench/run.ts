@@ -65,6 +65,6 @@ function descriptions(): string {
   /proc), which a shared machine disturbs less than the throughput.
 - **lighthouse** — the demo's lookup and part pages, signed in as the demo mechanic, in Debian's
   Chromium, with Lighthouse 12's default (mobile, simulated slow network and CPU) and desktop
-  settings; each page three times, and the figures are the median run's (the note lists every
+  settings; each page five times, and the figures are the median run's (the note lists every
   run's score).`;
 }
