@@ -276,7 +276,13 @@ export const purchaseOrderSummarySchema = purchaseOrderSchema.omit({ lines: true
 export const purchaseOrderListQuerySchema = z
   .object({ status: z.enum(purchaseOrderStatuses).optional(), supplierId: idSchema.optional() })
   .strict();
-export const purchaseOrderListResponseSchema = z.object({ orders: z.array(purchaseOrderSummarySchema) });
+/** The most orders one list answer holds: the newest, by number (narrow by state or supplier for older ones). */
+export const purchaseOrderListLimit = 500;
+export const purchaseOrderListResponseSchema = z.object({
+  orders: z.array(purchaseOrderSummarySchema),
+  /** True when more orders match than the answer holds (the newest `purchaseOrderListLimit`). */
+  truncated: z.boolean().optional(),
+});
 export const sendOrderResponseSchema = z.object({ order: purchaseOrderSchema, emailed: z.boolean(), message: z.string() });
 export const ordersFromReorderResponseSchema = z.object({ orders: z.array(purchaseOrderSchema), skipped: z.array(z.object({ partId: idSchema, reason: z.string() })) });
 

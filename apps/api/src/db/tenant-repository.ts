@@ -15,7 +15,7 @@ export function shopScoped<T extends ShopOwned>(manager: EntityManager, schema: 
   const repo = manager.getRepository(schema);
   const scoped = (where: FindOptionsWhere<T> = {}) => ({ ...where, shopId }) as FindOptionsWhere<T>;
   return {
-    find: (where?: FindOptionsWhere<T>, order?: FindOptionsOrder<T>) => repo.find({ where: scoped(where), order }),
+    find: (where?: FindOptionsWhere<T>, order?: FindOptionsOrder<T>, take?: number) => repo.find({ where: scoped(where), order, take }),
     findOne: (where: FindOptionsWhere<T>) => repo.findOne({ where: scoped(where) }),
     /** Like findOne, but a missing (or foreign) row is a 404 with `message`. */
     async findOneOr404(where: FindOptionsWhere<T>, message = 'Not found.'): Promise<T> {

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import type { EntityManager } from 'typeorm';
 import type { z } from 'zod';
 import { formatMoney } from '@tappet/domain';
-import type { AuditAction, orderInputSchema, orderLineInputSchema, orderUpdateSchema, PurchaseOrder, PurchaseOrderStatus, receiptInputSchema } from '@tappet/contracts';
+import { purchaseOrderListLimit, type AuditAction, type orderInputSchema, type orderLineInputSchema, type orderUpdateSchema, type PurchaseOrder, type PurchaseOrderStatus, type receiptInputSchema } from '@tappet/contracts';
 import { shopScoped } from '../../db/tenant-repository';
 import type { Database } from '../../db/write-lock';
 import type { Clock } from '../../lib/clock';
@@ -305,8 +305,14 @@ export function createOrdersService(deps: { db: Database; clock: Clock; mailer: 
   }
 
   return {
+    /** The newest orders matching (at most `purchaseOrderListLimit`; `truncated` says when more match). */
     async list(shopId: string, query: { status?: PurchaseOrderStatus; supplierId?: string }) {
-      const rows = await shopScoped(db.reader, PurchaseOrderEntity, shopId).find({ ...(query.status ? { status: query.status } : {}), ...(query.supplierId ? { supplierId: query.supplierId } : {}) }, { number: 'DESC' });
+      const found = await shopScoped(db.reader, PurchaseOrderEntity, shopId).find(
+        { ...(query.status ? { status: query.status } : {}), ...(query.supplierId ? { supplierId: query.supplierId } : {}) },
+        { number: 'DESC' },
+        purchaseOrderListLimit + 1,
+      );
+      const rows = found.slice(0, purchaseOrderListLimit);
       const shopCurrency = await shopCurrencyOf(db.reader, shopId);
       const counts = new Map(
         (await db.reader.query<Array<{ id: string; n: number }>>(`SELECT order_id AS id, COUNT(*) AS n FROM purchase_order_lines WHERE shop_id = ? GROUP BY order_id`, [shopId])).map((r) => [r.id, Number(r.n)]),
@@ -317,7 +323,7 @@ export function createOrdersService(deps: { db: Database; clock: Clock; mailer: 
         if (!suppliers.has(o.supplierId)) suppliers.set(o.supplierId, await supplierOf(db.reader, shopId, o.supplierId));
         out.push({ ...summary(o, suppliers.get(o.supplierId)!, shopCurrency), lineCount: counts.get(o.id) ?? 0 });
       }
-      return out;
+      return { orders: out, truncated: found.length > purchaseOrderListLimit };
     },
 
     get: (shopId: string, orderId: string) => view(db.reader, shopId, orderId),

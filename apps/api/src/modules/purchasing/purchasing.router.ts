@@ -135,7 +135,7 @@ export function purchasingRouter(deps: PurchasingDeps): Router {
 
   router.get('/orders', validate({ params: shopIdParamsSchema, query: purchaseOrderListQuerySchema }), async (req, res) => {
     authorize(req, 'read', 'PurchaseOrder');
-    res.json({ orders: await orders.list(shopIdOf(req), req.query as { status?: PurchaseOrderStatus; supplierId?: string }) });
+    res.json(await orders.list(shopIdOf(req), req.query as { status?: PurchaseOrderStatus; supplierId?: string }));
   });
   router.post('/orders', validate({ params: shopIdParamsSchema, body: orderInputSchema }), async (req, res) => {
     authorize(req, 'create', 'PurchaseOrder');

@@ -1,7 +1,10 @@
+import { randomUUID } from 'node:crypto';
+import { purchaseOrderListLimit } from '@tappet/contracts';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestContext, csrf, seedShop, signedInAgent, type TestContext } from '../../../test-support/test-app';
 import { AuditEventEntity } from '../../audit/audit.entity';
 import { HoldEntity, StockPoolEntity } from '../../stock/stock.entity';
+import { PurchaseOrderEntity } from '../purchasing.entity';
 import { addBin, addPart, addSupplier, post, type Agent } from './helpers';
 
 let ctx: TestContext;
@@ -195,5 +198,58 @@ describe('another shop', () => {
     const foreignLine = await outsider.post(`/api/shops/${otherShopId}/purchasing/orders`).set(csrf).send({ supplierId: ownSupplier, lines: [{ partId, quantity: 1, unitPriceMinor: 1 }] });
     expect(foreignLine.status).toBe(404);
     expect((await outsider.get(`/api/shops/${otherShopId}/purchasing/orders`)).body.orders).toEqual([]);
+  });
+});
+
+describe('the orders list', () => {
+  it('holds the newest orders up to its limit, says when more match, and narrows by supplier and state', async () => {
+    const shop = await seedShop(ctx, ['owner']);
+    const id = shop.shop.id;
+    const who = await signedInAgent(ctx.app, shop.byRole.owner.email, shop.password);
+    const busy = await addSupplier(who, id, { name: 'Marrick Spares' });
+    const quiet = await addSupplier(who, id, { name: 'Tolland Fittings' });
+    // Years of orders, written in one go: 501 sent to one supplier, then two drafts to another.
+    const at = new Date('2026-03-01T09:00:00Z');
+    const row = (number: number, supplierId: string, status: 'sent' | 'draft') => ({
+      id: randomUUID(),
+      shopId: id,
+      number,
+      supplierId,
+      status,
+      currency: 'GBP',
+      exchangeRate: '1',
+      totalMinor: 1000,
+      totalShopMinor: 1000,
+      note: null,
+      createdByUserId: null,
+      approvalRequestedAt: null,
+      approvedByUserId: null,
+      approvedAt: null,
+      rejectionReason: null,
+      sentAt: status === 'sent' ? at : null,
+      closedReason: null,
+      closedAt: null,
+      createdAt: at,
+      updatedAt: at,
+    });
+    const rows = [...Array.from({ length: purchaseOrderListLimit + 1 }, (_, i) => row(i + 1, busy, 'sent')), row(purchaseOrderListLimit + 2, quiet, 'draft'), row(purchaseOrderListLimit + 3, quiet, 'draft')];
+    await ctx.db.write((m) => m.insert(PurchaseOrderEntity, rows));
+
+    const all = await who.get(`/api/shops/${id}/purchasing/orders`);
+    expect(all.status).toBe(200);
+    expect(all.body.truncated).toBe(true);
+    expect(all.body.orders).toHaveLength(purchaseOrderListLimit);
+    expect(all.body.orders.slice(0, 3).map((o: { number: number }) => o.number)).toEqual([503, 502, 501]);
+    expect(all.body.orders[0]).toMatchObject({ supplierName: 'Tolland Fittings', status: 'draft', lineCount: 0 });
+
+    const narrowed = await who.get(`/api/shops/${id}/purchasing/orders?supplierId=${quiet}`);
+    expect(narrowed.body).toMatchObject({ truncated: false });
+    expect(narrowed.body.orders.map((o: { number: number }) => o.number)).toEqual([503, 502]);
+    const drafts = await who.get(`/api/shops/${id}/purchasing/orders?status=draft&supplierId=${busy}`);
+    expect(drafts.body).toEqual({ orders: [], truncated: false });
+    // The 501 sent orders are one more than an answer holds: the oldest is the one left out.
+    const sent = await who.get(`/api/shops/${id}/purchasing/orders?status=sent`);
+    expect(sent.body.truncated).toBe(true);
+    expect(sent.body.orders.at(-1).number).toBe(2);
   });
 });

@@ -4,17 +4,33 @@ import type { z } from 'zod';
 import { api } from '../../../lib/api-client';
 import { purchasingApi, purchasingKey } from './keys';
 
-export type OrderSummary = z.infer<typeof purchaseOrderListResponseSchema>['orders'][number];
+export type OrderList = z.infer<typeof purchaseOrderListResponseSchema>;
+export type OrderSummary = OrderList['orders'][number];
 
-/** GET /api/shops/:shopId/purchasing/orders, optionally of one status. */
-export function getOrders(shopId: string, status: PurchaseOrderStatus | null, signal?: AbortSignal): Promise<{ orders: OrderSummary[] }> {
-  return api.get(`${purchasingApi(shopId)}/orders${status ? `?status=${status}` : ''}`, { schema: purchaseOrderListResponseSchema, signal });
+/** What the orders list narrows by (null: any). */
+export interface OrderFilters {
+  status: PurchaseOrderStatus | null;
+  supplierId: string | null;
 }
 
-export function ordersQueryOptions(shopId: string, status: PurchaseOrderStatus | null = null) {
-  return queryOptions({ queryKey: [...purchasingKey(shopId), 'orders', status ?? 'all'], queryFn: ({ signal }) => getOrders(shopId, status, signal) });
+const anyOrder: OrderFilters = { status: null, supplierId: null };
+
+/** GET /api/shops/:shopId/purchasing/orders, optionally of one status and supplier: the newest (`truncated` when more match). */
+export function getOrders(shopId: string, filters: OrderFilters, signal?: AbortSignal): Promise<OrderList> {
+  const query = new URLSearchParams();
+  if (filters.status) query.set('status', filters.status);
+  if (filters.supplierId) query.set('supplierId', filters.supplierId);
+  const search = query.toString();
+  return api.get(`${purchasingApi(shopId)}/orders${search ? `?${search}` : ''}`, { schema: purchaseOrderListResponseSchema, signal });
 }
 
-export function useOrders(shopId: string, status: PurchaseOrderStatus | null = null) {
-  return useQuery(ordersQueryOptions(shopId, status));
+export function ordersQueryOptions(shopId: string, filters: OrderFilters = anyOrder) {
+  return queryOptions({
+    queryKey: [...purchasingKey(shopId), 'orders', filters.status ?? 'all', filters.supplierId ?? 'all'],
+    queryFn: ({ signal }) => getOrders(shopId, filters, signal),
+  });
+}
+
+export function useOrders(shopId: string, filters: OrderFilters = anyOrder) {
+  return useQuery(ordersQueryOptions(shopId, filters));
 }

@@ -1,18 +1,21 @@
-import { purchaseOrderStatuses, type PurchaseOrderStatus } from '@tappet/contracts';
+import { purchaseOrderListLimit, purchaseOrderStatuses, type PurchaseOrderStatus } from '@tappet/contracts';
 import { createColumnHelper, DataTable, EmptyState, ErrorState, LoadingState, Num, Select, StatusPill } from '@tappet/ui';
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { errorMessage } from '../../../lib/api-client';
 import { useOrders, type OrderSummary } from '../api/get-orders';
+import { useSuppliers } from '../api/get-suppliers';
 import { money, orderStatusWords } from './words';
 
 const column = createColumnHelper<OrderSummary>();
 
-/** Purchase orders, newest first, filtered by state. */
+/** Purchase orders, newest first, narrowed by state and supplier. */
 export function OrdersList({ shopId }: { shopId: string }) {
   const [status, setStatus] = useState<PurchaseOrderStatus | null>(null);
-  const orders = useOrders(shopId, status);
+  const [supplierId, setSupplierId] = useState<string | null>(null);
+  const orders = useOrders(shopId, { status, supplierId });
+  const suppliers = useSuppliers(shopId);
   const columns = useMemo(
     () => [
       column.accessor('reference', {
@@ -34,22 +37,40 @@ export function OrdersList({ shopId }: { shopId: string }) {
   );
   return (
     <>
-      <div className="mb-4 max-w-xs">
-        <Select
-          label="State"
-          value={status ?? ''}
-          onChange={(e) => setStatus((e.target.value || null) as PurchaseOrderStatus | null)}
-          options={[{ value: '', label: 'Every state' }, ...purchaseOrderStatuses.map((s) => ({ value: s, label: orderStatusWords[s].label }))]}
-        />
+      <div className="mb-4 flex flex-wrap gap-4">
+        <div className="w-full max-w-xs">
+          <Select
+            label="State"
+            value={status ?? ''}
+            onChange={(e) => setStatus((e.target.value || null) as PurchaseOrderStatus | null)}
+            options={[{ value: '', label: 'Every state' }, ...purchaseOrderStatuses.map((s) => ({ value: s, label: orderStatusWords[s].label }))]}
+          />
+        </div>
+        <div className="w-full max-w-xs">
+          <Select
+            label="Supplier"
+            value={supplierId ?? ''}
+            onChange={(e) => setSupplierId(e.target.value || null)}
+            disabled={!suppliers.data}
+            options={[{ value: '', label: suppliers.isError ? 'Every supplier (the list could not load)' : 'Every supplier' }, ...(suppliers.data?.suppliers ?? []).map((s) => ({ value: s.id, label: s.name }))]}
+          />
+        </div>
       </div>
       {orders.isPending ? (
         <LoadingState label="Loading orders…" />
       ) : orders.isError ? (
         <ErrorState message={errorMessage(orders.error)} onRetry={() => void orders.refetch()} />
       ) : orders.data.orders.length === 0 ? (
-        <EmptyState title="No orders here">Draft orders from the reorder list, or pick another state.</EmptyState>
+        <EmptyState title="No orders here">Draft orders from the reorder list, or pick another state or supplier.</EmptyState>
       ) : (
-        <DataTable caption="Purchase orders" columns={columns} data={orders.data.orders} filterLabel="Filter orders" getRowId={(o) => o.id} />
+        <>
+          {orders.data.truncated && (
+            <p role="status" className="mb-4 rounded-md border-2 border-advise bg-advise-soft p-3">
+              Showing the newest {purchaseOrderListLimit} orders. Pick a state or a supplier to see older ones.
+            </p>
+          )}
+          <DataTable caption="Purchase orders" columns={columns} data={orders.data.orders} filterLabel="Filter orders" getRowId={(o) => o.id} />
+        </>
       )}
     </>
   );
