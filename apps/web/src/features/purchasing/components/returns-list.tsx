@@ -9,6 +9,7 @@ import { creditReturn, usePurchasingMutation } from '../api/write-purchasing';
 import { money } from './words';
 
 const column = createColumnHelper<SupplierReturn>();
+const kindWords: Record<SupplierReturn['kind'], string> = { return: 'Return', core: 'Core' };
 
 /** Records the credit a supplier gave for a return or core. */
 function CreditDialog({ shopId, item, onClose }: { shopId: string; item: SupplierReturn; onClose: () => void }) {
@@ -44,8 +45,17 @@ export function ReturnsList({ shopId }: { shopId: string }) {
   const [crediting, setCrediting] = useState<SupplierReturn | null>(null);
   const columns = useMemo(
     () => [
-      column.accessor('createdAt', { header: 'Date', cell: (info) => info.getValue().slice(0, 10) }),
-      column.accessor('kind', { header: 'Kind', cell: (info) => (info.getValue() === 'core' ? 'Core' : 'Return') }),
+      // The kind under the date: the table fits a tablet in landscape.
+      column.accessor((row) => `${row.createdAt.slice(0, 10)} ${kindWords[row.kind]}`, {
+        id: 'date',
+        header: 'Date',
+        cell: (info) => (
+          <>
+            <span className="whitespace-nowrap">{info.row.original.createdAt.slice(0, 10)}</span>
+            <span className="block text-sm text-ink-muted">{kindWords[info.row.original.kind]}</span>
+          </>
+        ),
+      }),
       column.accessor('partNumber', { header: 'Part', cell: (info) => <PartNumber>{info.getValue()}</PartNumber> }),
       column.accessor('quantity', { header: 'Qty', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
       column.accessor('supplierName', { header: 'Supplier' }),

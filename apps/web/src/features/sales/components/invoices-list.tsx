@@ -1,6 +1,6 @@
 import type { InvoiceSummary } from '@tappet/contracts';
 import { createColumnHelper, DataTable, EmptyState, ErrorState, LoadingState, Num, Select, StatusPill, TextField } from '@tappet/ui';
-import { useMemo, useState } from 'react';
+import { Fragment, useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { errorMessage } from '../../../lib/api-client';
@@ -28,12 +28,29 @@ export function InvoicesList({ shopId }: { shopId: string }) {
         header: 'Document',
         cell: (info) => (
           <Link to={paths.shop.salesInvoice.getHref(shopId, info.row.original.id)} className="font-mono text-accent">
-            {documentTitle(info.row.original)}
+            {/* The line may break before the number, never inside it (at its dash). */}
+            {documentTitle(info.row.original)
+              .split(' ')
+              .map((word, i) => (
+                <Fragment key={i}>
+                  {i > 0 && ' '}
+                  <span className="whitespace-nowrap">{word}</span>
+                </Fragment>
+              ))}
           </Link>
         ),
       }),
-      column.accessor('customerName', { header: 'Customer' }),
-      column.accessor('source', { header: 'From', cell: (info) => sourceWords[info.getValue()] }),
+      // Where it came from under the customer: the table fits a tablet in landscape.
+      column.accessor((row) => `${row.customerName} ${sourceWords[row.source]}`, {
+        id: 'customer',
+        header: 'Customer',
+        cell: (info) => (
+          <>
+            {info.row.original.customerName}
+            <span className="block text-sm text-ink-muted">{sourceWords[info.row.original.source]}</span>
+          </>
+        ),
+      }),
       column.accessor('paymentStatus', {
         header: 'State',
         cell: (info) => {
@@ -45,7 +62,7 @@ export function InvoicesList({ shopId }: { shopId: string }) {
       }),
       column.accessor('grossMinor', { header: 'Total', meta: { numeric: true }, cell: (info) => <Num>{money(info.getValue(), info.row.original.currency)}</Num> }),
       column.accessor('dueMinor', { header: 'Due', meta: { numeric: true }, cell: (info) => <Num>{money(info.getValue(), info.row.original.currency)}</Num> }),
-      column.accessor('issuedAt', { header: 'Date', cell: (info) => (info.getValue() ?? info.row.original.createdAt).slice(0, 10) }),
+      column.accessor('issuedAt', { header: 'Date', meta: { cellClassName: 'whitespace-nowrap' }, cell: (info) => (info.getValue() ?? info.row.original.createdAt).slice(0, 10) }),
     ],
     [shopId],
   );

@@ -88,7 +88,7 @@ export function MovementHistory({ shopId }: { shopId: string }) {
         cell: (info) => <BinWithCondition code={info.getValue()} condition={info.row.original.condition} to={info.row.original.toBinCode} />,
       }),
       column.accessor('quantityDelta', {
-        header: 'Quantity',
+        header: 'Qty',
         enableSorting: false,
         meta: { numeric: true },
         cell: (info) => <Num>{info.row.original.kind === 'moved' ? String(-info.getValue()) : info.row.original.kind === 'counted' ? `${info.row.original.countedQuantity ?? ''} (${signed(info.getValue())})` : signed(info.getValue())}</Num>,
