@@ -118,7 +118,9 @@ export function DataTable<T>({
           />
         </div>
       )}
-      <div className="overflow-x-auto rounded-md border-2 border-line">
+      {/* Positioned: the screen-reader-only text inside (positioned absolutely) then scrolls with
+          the table instead of widening the whole page when the table is wider than the screen. */}
+      <div className="relative overflow-x-auto rounded-md border-2 border-line">
         <table className="w-full border-collapse text-left">
           <caption className={showCaption ? 'p-3 text-left text-lg font-bold' : 'sr-only'}>{caption}</caption>
           <thead className="bg-sunk">

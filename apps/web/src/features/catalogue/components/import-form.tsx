@@ -57,7 +57,7 @@ function Counts({ result }: { result: ImportResult }) {
 
 function ErrorsTable({ errors }: { errors: ImportResult['errors'] }) {
   return (
-    <div className="overflow-x-auto rounded-md border-2 border-fail">
+    <div className="relative overflow-x-auto rounded-md border-2 border-fail">
       <table className="w-full border-collapse text-left">
         <caption className="bg-fail-soft p-3 text-left font-bold">
           {countWords(errors.length, 'problem', 'problems')} in the file. Fix these rows and check the file again; nothing has been imported.
@@ -94,7 +94,7 @@ function ErrorsTable({ errors }: { errors: ImportResult['errors'] }) {
 function SampleTable({ sample }: { sample: ImportResult['sample'] }) {
   if (sample.length === 0) return null;
   return (
-    <div className="overflow-x-auto rounded-md border-2 border-line">
+    <div className="relative overflow-x-auto rounded-md border-2 border-line">
       <table className="w-full border-collapse text-left">
         <caption className="p-3 text-left font-bold">The first rows, as they would be imported</caption>
         <thead className="bg-sunk">

@@ -18,7 +18,7 @@ export function ConsignmentList({ shopId }: { shopId: string }) {
       </EmptyState>
     );
   return (
-    <div className="overflow-x-auto">
+    <div className="relative overflow-x-auto">
       <table className="w-full text-left">
         <caption className="sr-only">Consigned vehicles</caption>
         <thead>

@@ -128,7 +128,7 @@ export function EstimatePanel({ shopId, jobId, assigneeIds }: { shopId: string; 
           {current.lines.length === 0 ? (
             <p className="text-ink-muted">No lines yet.</p>
           ) : (
-            <div className="overflow-x-auto">
+            <div className="relative overflow-x-auto">
               <table className="w-full text-left">
                 <caption className="sr-only">Lines of {current.reference}</caption>
                 <thead>

@@ -297,7 +297,7 @@ export function OrderDetail({ shopId, orderId, labelsAction }: { shopId: string;
         )}
       </div>
 
-      <div className="overflow-x-auto">
+      <div className="relative overflow-x-auto">
         <table className="w-full border-collapse text-left">
           <caption className="sr-only">Lines of {o.reference}</caption>
           <thead>

@@ -78,7 +78,7 @@ function Group({ shopId, group, suggestions, selected, toggle }: { shopId: strin
           </p>
         )}
       </div>
-      <div className="overflow-x-auto">
+      <div className="relative overflow-x-auto">
         <table className="w-full border-collapse text-left">
           <caption className="sr-only">Suggestions for {group.supplierName ?? 'parts without a supplier'}</caption>
           <thead>
@@ -157,7 +157,7 @@ function SpecialOrders({ shopId, rows, selected, toggle }: { shopId: string; row
         Special orders for jobs
       </h2>
       <p className="mb-2 max-w-prose text-ink-muted">Parts a job needs that were not in stock. What arrives is held for the job.</p>
-      <div className="overflow-x-auto">
+      <div className="relative overflow-x-auto">
         <table className="w-full border-collapse text-left">
           <caption className="sr-only">Special orders for jobs</caption>
           <thead>
@@ -311,7 +311,7 @@ function StockHealth({ title, rows, currency, empty }: { title: string; rows: Re
       {rows.length === 0 ? (
         <p>{empty}</p>
       ) : (
-        <div className="overflow-x-auto">
+        <div className="relative overflow-x-auto">
           <table className="w-full border-collapse text-left">
             <caption className="sr-only">{title}</caption>
             <thead>

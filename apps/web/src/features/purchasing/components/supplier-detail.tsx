@@ -1,5 +1,5 @@
 import type { Listing, Supplier } from '@tappet/contracts';
-import { Button, ConfirmDialog, createColumnHelper, DataTable, Dialog, EmptyState, ErrorState, FormDialogFooter, FormMessage, LoadingState, Num, PartNumber, TextField, useToast } from '@tappet/ui';
+import { Badge, Button, ConfirmDialog, createColumnHelper, DataTable, Dialog, EmptyState, ErrorState, FormDialogFooter, FormMessage, LoadingState, MenuButton, Num, PartNumber, TextField, useToast } from '@tappet/ui';
 import { minorUnitExponent, parseMinorUnits } from '@tappet/domain';
 import { useId, useMemo, useState, type FormEvent } from 'react';
 import { useCan } from '../../../lib/ability';
@@ -97,8 +97,19 @@ export function SupplierDetail({ shopId, supplierId }: { shopId: string; supplie
   const supplier = suppliers.data?.suppliers.find((s) => s.id === supplierId);
   const columns = useMemo(
     () => [
-      column.accessor('partNumber', { header: 'Part', cell: (info) => <PartNumber>{info.getValue()}</PartNumber> }),
-      column.accessor('partDescription', { header: 'Description' }),
+      // The description and the preferred mark under the number, and the actions in one menu: the
+      // table fits a tablet in landscape.
+      column.accessor((row) => `${row.partNumber} ${row.partDescription}`, {
+        id: 'part',
+        header: 'Part',
+        cell: (info) => (
+          <>
+            <PartNumber>{info.row.original.partNumber}</PartNumber>
+            <span className="block">{info.row.original.partDescription}</span>
+            {info.row.original.preferred && <Badge className="mt-1">Preferred supplier</Badge>}
+          </>
+        ),
+      }),
       column.accessor('supplierNumber', { header: 'Their number', cell: (info) => <span className="font-mono">{info.getValue() ?? '—'}</span> }),
       column.accessor('priceMinor', { header: 'Price', meta: { numeric: true }, cell: (info) => <Num>{money(info.getValue(), info.row.original.currency)}</Num> }),
       column.accessor('packSize', { header: 'Pack', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
@@ -108,21 +119,20 @@ export function SupplierDetail({ shopId, supplierId }: { shopId: string; supplie
         meta: { numeric: true },
         cell: (info) => (info.getValue() === null ? '—' : <Num>{`${money(info.getValue(), info.row.original.shopCurrency)} on ${info.row.original.lastPaidAt?.slice(0, 10) ?? ''}`}</Num>),
       }),
-      column.accessor('preferred', { header: 'Preferred', cell: (info) => (info.getValue() ? 'Yes' : '') }),
       ...(canUpdate
         ? [
             column.display({
               id: 'actions',
               header: () => <span className="sr-only">Actions</span>,
               cell: (info) => (
-                <div className="flex gap-2">
-                  <Button size="sm" variant="secondary" aria-label={`Change the listing of ${info.row.original.partNumber}`} onClick={() => setEditing(info.row.original)}>
-                    Change
-                  </Button>
-                  <Button size="sm" variant="secondary" aria-label={`Remove the listing of ${info.row.original.partNumber}`} onClick={() => setRemoving(info.row.original)}>
-                    Remove
-                  </Button>
-                </div>
+                <MenuButton
+                  label="Actions"
+                  accessibleLabel={`Actions for the listing of ${info.row.original.partNumber}`}
+                  items={[
+                    { key: 'change', label: 'Change the listing', onSelect: () => setEditing(info.row.original) },
+                    { key: 'remove', label: 'Remove the listing', onSelect: () => setRemoving(info.row.original) },
+                  ]}
+                />
               ),
             }),
           ]

@@ -66,7 +66,7 @@ export function SalesReports({ shopId }: { shopId: string }) {
             )}
             <details>
               <summary className="min-h-touch cursor-pointer font-bold">Show the figures</summary>
-              <div className="overflow-x-auto">
+              <div className="relative overflow-x-auto">
                 <table className="mt-2 w-full">
                   <caption className="sr-only">Sales by period</caption>
                   <thead>
@@ -153,7 +153,7 @@ export function SalesReports({ shopId }: { shopId: string }) {
               <BarChart title="Unpaid amounts by age" description={unpaid.data.buckets.map((b) => `${bucketWords[b.bucket]}: ${money(b.dueMinor)}`).join('; ')} bars={unpaid.data.buckets.map((b) => ({ key: b.bucket, label: bucketWords[b.bucket]!, value: b.dueMinor }))} format={money} />
             )}
             {unpaid.data.invoices.length > 0 && (
-              <div className="overflow-x-auto">
+              <div className="relative overflow-x-auto">
                 <table className="w-full">
                   <caption className="sr-only">Unpaid invoices, oldest first</caption>
                   <thead>

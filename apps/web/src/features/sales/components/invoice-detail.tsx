@@ -296,7 +296,7 @@ function Lines({ inv, shopId, canEdit }: { inv: Invoice; shopId: string; canEdit
       {inv.lines.length === 0 ? (
         <p className="text-ink-muted">No lines yet.</p>
       ) : (
-        <div className="overflow-x-auto">
+        <div className="relative overflow-x-auto">
           <table className="w-full border-collapse text-left">
             <caption className="sr-only">Lines of {documentTitle(inv)}</caption>
             <thead>
