@@ -67,7 +67,7 @@ export function MovementHistory({ shopId }: { shopId: string }) {
           return (
             <>
               <span className="font-bold">{movementLabels[info.getValue()]}</span>
-              {detail && <span className="block min-w-32 text-sm text-ink-muted">{detail}</span>}
+              {detail && <span className="block min-w-28 text-sm text-ink-muted">{detail}</span>}
             </>
           );
         },
