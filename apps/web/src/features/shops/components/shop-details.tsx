@@ -1,5 +1,5 @@
 import type { ShopDetail } from '@tappet/contracts';
-import { PartNumber } from '@tappet/ui';
+import { Num, PartNumber } from '@tappet/ui';
 
 const dateFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'long' });
 
@@ -19,7 +19,7 @@ export function ShopDetails({ shop }: { shop: ShopDetail }) {
       </dd>
       <dt className="font-bold">Shop id (for the API)</dt>
       <dd>
-        <PartNumber className="text-base break-all whitespace-normal">{shop.id}</PartNumber>
+        <Num className="break-all">{shop.id}</Num>
       </dd>
     </dl>
   );
