@@ -6,10 +6,10 @@ import { formValues, useFormErrors } from '../../../lib/forms';
 import { useCreateApiKey } from '../api/create-api-key';
 import { useApiKeys } from '../api/get-api-keys';
 import { useRevokeApiKey } from '../api/revoke-api-key';
+import { formatDateTime } from '../../../lib/dates';
 
 const column = createColumnHelper<ApiKeySummary>();
-const dateTime = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
-const when = (iso: string) => <time dateTime={iso}>{dateTime.format(new Date(iso))}</time>;
+const when = (iso: string) => <time dateTime={iso}>{formatDateTime(iso)}</time>;
 
 const roleOptions = [
   { value: 'viewer', label: 'Viewer: reads the shop’s records' },

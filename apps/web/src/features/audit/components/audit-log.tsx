@@ -4,10 +4,9 @@ import { useMemo } from 'react';
 import { errorMessage } from '../../../lib/api-client';
 import { auditCsvHref, emptyAuditFilters, useAuditEvents, type AuditFilters } from '../api/get-audit-events';
 import { actionWord, entityOptions, fieldWords, showValue } from './words';
+import { formatDateTime } from '../../../lib/dates';
 
 const column = createColumnHelper<AuditEventView>();
-const dateTime = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'medium' });
-
 export interface AuditLogProps {
   shopId: string;
   filters: AuditFilters;
@@ -52,7 +51,7 @@ export function AuditLog({ shopId, filters, page, onChange, actors, pageSize = 5
         header: 'When',
         cell: (info) => (
           <time dateTime={info.getValue()}>
-            {dateTime.format(new Date(info.getValue()))}
+            {formatDateTime(info.getValue(), { seconds: true })}
           </time>
         ),
       }),

@@ -4,9 +4,9 @@ import { useMemo, useRef, useState, type FormEvent } from 'react';
 import { errorMessage } from '../../../lib/api-client';
 import { formValues, useFormErrors } from '../../../lib/forms';
 import { useGrantSupportAccess, useRevokeSupportAccess, useSupportAccess } from '../api/support-access';
+import { formatDateTime } from '../../../lib/dates';
 
-const dateTime = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
-const when = (iso: string) => <time dateTime={iso}>{dateTime.format(new Date(iso))}</time>;
+const when = (iso: string) => <time dateTime={iso}>{formatDateTime(iso)}</time>;
 const column = createColumnHelper<SupportActivity>();
 
 const durations = [
@@ -36,7 +36,7 @@ function GrantForm({ shopId }: { shopId: string }) {
     if (!parsed.success) return errors.failValidation(parsed.error);
     errors.clear();
     grant.mutate(parsed.data, {
-      onSuccess: (g) => toast.show(`Support access granted until ${dateTime.format(new Date(g.expiresAt))}.`, 'ok'),
+      onSuccess: (g) => toast.show(`Support access granted until ${formatDateTime(g.expiresAt)}.`, 'ok'),
       onError: (err) => errors.failApi(err, ['hours', 'note']),
     });
   }

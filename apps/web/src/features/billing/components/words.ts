@@ -10,12 +10,8 @@ export const billingPill: Record<BillingStateName, { status: Status; label: stri
   cancelled: { status: 'fail', label: billingStateLabels.cancelled },
 };
 
-const dateFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium' });
-
-/** A date as people read it, in a <time> element. */
-export function formatDate(iso: string): string {
-  return dateFormat.format(new Date(iso));
-}
+// Dates as every screen shows them (lib/dates.ts).
+export { formatDate } from '../../../lib/dates';
 
 /** A monthly price in minor units, e.g. "£49.00". */
 export function formatPrice(minor: number, currency: string): string {

@@ -12,6 +12,7 @@ import { enterCount, useCountMutation } from '../api/write-counts';
 import { CountLabelsButton } from './count-labels-button';
 import { codeKey, conditionWords, countStatusWords } from './count-words';
 import { scopeWords } from './counts-list';
+import { formatTime } from '../../../lib/dates';
 
 type Mode = 'set' | 'add';
 
@@ -53,7 +54,7 @@ function LineRow({ line, mode, canCount, highlighted, inputRef, onSave, saving }
             <>
               Counted <Num>{line.countedQuantity}</Num>
               {line.counted?.name ? ` by ${line.counted.name}` : ''}
-              {line.counted ? `, ${new Date(line.counted.at).toLocaleTimeString(undefined, { hour: '2-digit', minute: '2-digit' })}` : ''}
+              {line.counted ? `, ${formatTime(line.counted.at)}` : ''}
             </>
           )}
         </p>

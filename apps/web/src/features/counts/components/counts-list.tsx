@@ -8,10 +8,9 @@ import { errorMessage } from '../../../lib/api-client';
 import { useCounts } from '../api/get-counts';
 import { countStatusWords } from './count-words';
 import { StartCountDialog } from './start-count-dialog';
+import { formatDate } from '../../../lib/dates';
 
 const column = createColumnHelper<CountSummary>();
-const dateOf = (iso: string) => new Date(iso).toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' });
-
 /** What a count covers, in words. */
 export function scopeWords(count: Pick<CountSummary, 'scope'>): string {
   if (count.scope.categories.length > 0) return `${count.scope.categories.length === 1 ? 'Category' : 'Categories'} ${count.scope.categories.join(', ')}`;
@@ -48,7 +47,7 @@ export function CountsList({ shopId }: { shopId: string }) {
         ),
       }),
       column.accessor('differenceCount', { header: 'Differences', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
-      column.display({ id: 'started', header: 'Started', cell: (info) => `${dateOf(info.row.original.started.at)}${info.row.original.started.name ? `, ${info.row.original.started.name}` : ''}` }),
+      column.display({ id: 'started', header: 'Started', cell: (info) => `${formatDate(info.row.original.started.at)}${info.row.original.started.name ? `, ${info.row.original.started.name}` : ''}` }),
     ],
     [shopId],
   );

@@ -5,6 +5,7 @@ import { formatMoney } from '@tappet/domain';
 import { Button, ErrorState, FormField, LoadingState, TextField, inputClasses } from '@tappet/ui';
 import { ApiError, errorMessage } from '../../../lib/api-client';
 import { approveEstimate, declineEstimate, viewApproval } from '../api/public-approval';
+import { formatDate, formatDateTime } from '../../../lib/dates';
 
 const linkProblem = (error: unknown): string => {
   if (error instanceof ApiError && (error.status === 404 || error.status === 410 || error.status === 400)) return error.message;
@@ -33,7 +34,7 @@ function Decided({ decision, currency }: { decision: PublicEstimateDecision; cur
       <p className="text-lg font-bold">{decision.status === 'approved' ? 'Thank you: the estimate is approved.' : 'Thank you: the shop knows you declined the estimate.'}</p>
       <p>
         Estimate {decision.reference}
-        {decision.approvedAmountMinor !== null && <> · approved amount {formatMoney(decision.approvedAmountMinor, currency)} including tax</>} · {new Date(decision.decidedAt).toLocaleString('en-GB')}
+        {decision.approvedAmountMinor !== null && <> · approved amount {formatMoney(decision.approvedAmountMinor, currency)} including tax</>} · {formatDateTime(decision.decidedAt)}
       </p>
       <p>The shop will be in touch. Work beyond this amount needs your approval again.</p>
     </div>
@@ -87,7 +88,7 @@ function EstimateForCustomer({ token, estimate: e, onDecided }: { token: string;
         </dd>
       </dl>
       {e.note && <p className="rounded-md border-2 border-line p-3">{e.note}</p>}
-      <p className="text-sm text-ink-muted">This link works once, until {new Date(e.expiresAt).toLocaleDateString('en-GB')}.</p>
+      <p className="text-sm text-ink-muted">This link works once, until {formatDate(e.expiresAt)}.</p>
 
       {errors['form'] && (
         <p role="alert" className="font-bold text-fail">

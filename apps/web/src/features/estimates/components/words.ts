@@ -1,4 +1,5 @@
 import type { EstimateStatus } from '@tappet/contracts';
+import { formatDate } from '../../../lib/dates';
 
 export const estimateStatusWords: Record<EstimateStatus, string> = {
   draft: 'Draft',
@@ -9,4 +10,4 @@ export const estimateStatusWords: Record<EstimateStatus, string> = {
 };
 
 /** A calendar date for people, from an ISO time. */
-export const dateOf = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }) : '');
+export const dateOf = (iso: string | null) => (iso ? formatDate(iso) : '');

@@ -1,6 +1,7 @@
 import { roleLabels, type ShopRole } from '@tappet/contracts';
 import { Badge, Num } from '@tappet/ui';
 import type { MembershipView } from '../../../lib/auth';
+import { formatDateTime } from '../../../lib/dates';
 
 const roleDuty: Record<ShopRole, string> = {
   owner: 'You run this shop: its name and settings, its staff and their roles, and its billing are yours to manage.',
@@ -24,8 +25,6 @@ const roleStarts: Record<ShopRole, string[]> = {
   buyer: ['Work through the reorder list and receive deliveries under Purchasing.', 'Count stock, bin by bin, under Counts.'],
   viewer: ['Look anything up under Lookup, Stock, Vehicles and Jobs.'],
 };
-
-const untilFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 
 const amountFormat = new Intl.NumberFormat(undefined, { minimumFractionDigits: 2, maximumFractionDigits: 2 });
 
@@ -61,7 +60,7 @@ export function RoleWelcome({ firstName, membership, shopCount }: RoleWelcomePro
       <p>
         {support ? (
           <>
-            You are here under the owner’s support grant, until <time dateTime={membership.supportUntil!}>{untilFormat.format(new Date(membership.supportUntil!))}</time>. Staff, API keys,
+            You are here under the owner’s support grant, until <time dateTime={membership.supportUntil!}>{formatDateTime((membership.supportUntil!))}</time>. Staff, API keys,
             billing and support access stay with the shop.
           </>
         ) : (

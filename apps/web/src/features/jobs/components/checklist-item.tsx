@@ -3,6 +3,7 @@ import { cautionTexts, compressionForDisplay, formatMeasurement, type PressureUn
 import { Button, Caution, FormMessage, StatusPill, TextField, cn, inputClasses } from '@tappet/ui';
 import { useId, useState } from 'react';
 import { ApiError, errorMessage } from '../../../lib/api-client';
+import { formatDateTime } from '../../../lib/dates';
 
 type Item = Checklist['items'][number];
 
@@ -93,7 +94,7 @@ export function ChecklistItemCard({
               {signedOff && <span className="text-sm font-bold">Unresolved: signed off by the owner</span>}
               <span className="text-sm">{recordSummary(item, record, pressureUnit)}</span>
               {record.note && <span className="text-sm text-ink-muted">“{record.note}”</span>}
-              {record.recordedBy && <span className="text-sm text-ink-muted">— {record.recordedBy.name}, {new Date(record.recordedAt).toLocaleString('en-GB')}</span>}
+              {record.recordedBy && <span className="text-sm text-ink-muted">— {record.recordedBy.name}, {formatDateTime(record.recordedAt)}</span>}
               {photo && (
                 <a href={photo.href} target="_blank" rel="noreferrer" aria-label={`Photo of this item: ${photo.label}`}>
                   <img src={photo.thumbnailHref} alt={photo.label} className="h-12 rounded-sm border border-line object-cover" />

@@ -26,6 +26,7 @@ import { JobPhotos } from './job-photos';
 import { PartsFinder } from './parts-finder';
 import { JobStatusBadge } from './job-status-badge';
 import { hoursWords, vehicleLine } from './words';
+import { formatCalendarDate, formatDate, formatDateTime } from '../../../lib/dates';
 
 export interface JobPermissions {
   /** Record checklists, labour, status: owner, or a mechanic assigned to the job. */
@@ -125,9 +126,9 @@ export function JobView({ shopId, job, can, pressureUnit, meId, formatMoney }: {
           <div>
             <dt className="text-sm font-bold text-ink-muted">Dates</dt>
             <dd>
-              Opened {new Date(job.createdAt).toLocaleDateString('en-GB')}
-              {job.dueOn && ` · due ${job.dueOn}`}
-              {job.completedAt && ` · done ${new Date(job.completedAt).toLocaleDateString('en-GB')}`}
+              Opened {formatDate(job.createdAt)}
+              {job.dueOn && ` · due ${formatCalendarDate(job.dueOn)}`}
+              {job.completedAt && ` · done ${formatDate(job.completedAt)}`}
             </dd>
           </div>
           {job.notes && (
@@ -237,7 +238,7 @@ function Blockers({ shopId, job, canSignOff }: { shopId: string; job: JobDetail;
         <ul className="flex flex-col gap-2">
           {job.signOffs.map((s) => (
             <li key={s.id} className="rounded-md border-2 border-line-strong p-3 text-sm">
-              <strong>Unresolved, signed off</strong> by {s.signedBy?.name ?? 'the owner'} on {new Date(s.signedAt).toLocaleString('en-GB')}: {s.reason} Customer told: {s.customerToldHow}
+              <strong>Unresolved, signed off</strong> by {s.signedBy?.name ?? 'the owner'} on {formatDateTime(s.signedAt)}: {s.reason} Customer told: {s.customerToldHow}
             </li>
           ))}
         </ul>
@@ -328,7 +329,7 @@ function ChecklistBlock({ shopId, job, checklist, editable, pressureUnit }: { sh
       </div>
       {checklist.completedAt && (
         <p className="mb-2">
-          Completed by {checklist.completedBy?.name ?? 'someone'} on {new Date(checklist.completedAt).toLocaleString('en-GB')}. This records what was checked, by whom and when.
+          Completed by {checklist.completedBy?.name ?? 'someone'} on {formatDateTime(checklist.completedAt)}. This records what was checked, by whom and when.
         </p>
       )}
       {error && <FormMessage>{error}</FormMessage>}

@@ -7,9 +7,9 @@ import { errorMessage } from '../../../lib/api-client';
 import { formValues, useFormErrors } from '../../../lib/forms';
 import { billingPill, formatDate, formatPrice } from '../../billing/components/words';
 import { useChangeShopState, useOnboardShop, usePlatformShops } from '../api/platform-api';
+import { formatDateTime } from '../../../lib/dates';
 
 const column = createColumnHelper<PlatformShop>();
-const dateTime = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 const usage = (used: number, limit: number | null) => `${used.toLocaleString()} / ${limit === null ? '∞' : limit.toLocaleString()}`;
 
 function OnboardDialog({ open, onClose, plans }: { open: boolean; onClose: () => void; plans: PlanView[] }) {
@@ -162,7 +162,7 @@ export function PlatformShopsScreen() {
         sortUndefined: 'last',
         cell: (info) => {
           const v = info.getValue();
-          return v ? <time dateTime={v}>{dateTime.format(new Date(v))}</time> : <span className="text-ink-muted">None yet</span>;
+          return v ? <time dateTime={v}>{formatDateTime((v))}</time> : <span className="text-ink-muted">None yet</span>;
         },
       }),
       column.accessor('supportAccessUntil', {
@@ -173,7 +173,7 @@ export function PlatformShopsScreen() {
           // Granted by the shop's owner: open the shop (every look and change is shown to them).
           return (
             <span className="flex flex-col items-start gap-1">
-              <span>Until {dateTime.format(new Date(v))}</span>
+              <span>Until {formatDateTime((v))}</span>
               <Link className="font-bold underline underline-offset-2" to={paths.shop.home.getHref(info.row.original.id)}>
                 Open {info.row.original.name}
               </Link>

@@ -1,7 +1,6 @@
 import type { ShopDetail } from '@tappet/contracts';
 import { Num, PartNumber } from '@tappet/ui';
-
-const dateFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'long' });
+import { formatDate } from '../../../lib/dates';
 
 /** The shop's record as the API has it. */
 export function ShopDetails({ shop }: { shop: ShopDetail }) {
@@ -15,7 +14,7 @@ export function ShopDetails({ shop }: { shop: ShopDetail }) {
       </dd>
       <dt className="font-bold">On Tappet since</dt>
       <dd>
-        <time dateTime={shop.createdAt}>{dateFormat.format(new Date(shop.createdAt))}</time>
+        <time dateTime={shop.createdAt}>{formatDate(shop.createdAt)}</time>
       </dd>
       <dt className="font-bold">Shop id (for the API)</dt>
       <dd>

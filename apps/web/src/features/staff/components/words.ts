@@ -30,13 +30,5 @@ export function parseMajorAmount(text: string): number | null {
   return Number(whole) * 100 + Number(fraction.padEnd(2, '0'));
 }
 
-const dateTime = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
-const dateOnly = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium' });
-
-export function formatDateTime(iso: string): string {
-  return dateTime.format(new Date(iso));
-}
-
-export function formatDate(iso: string): string {
-  return dateOnly.format(new Date(iso));
-}
+// Dates as every screen shows them (lib/dates.ts).
+export { formatDate, formatDateTime } from '../../../lib/dates';

@@ -9,6 +9,7 @@ import { useMovements } from '../api/get-movements';
 import { useValuation } from '../api/get-valuation';
 import { BinWithCondition } from './bin-with-condition';
 import { money, movementLabels, signed } from './words';
+import { formatDate } from '../../../lib/dates';
 
 const column = createColumnHelper<Movement>();
 const PAGE_SIZE = 50;
@@ -55,7 +56,7 @@ export function MovementHistory({ shopId }: { shopId: string }) {
 
   const columns = useMemo(
     () => [
-      column.accessor('occurredAt', { header: 'When', enableSorting: false, meta: { cellClassName: 'whitespace-nowrap' }, cell: (info) => new Date(info.getValue()).toLocaleDateString('en-GB', { day: '2-digit', month: 'short', year: 'numeric' }) }),
+      column.accessor('occurredAt', { header: 'When', enableSorting: false, meta: { cellClassName: 'whitespace-nowrap' }, cell: (info) => formatDate(info.getValue()) }),
       // The detail (reason, reference, note, who) under what happened rather than in a column of
       // its own: the table then fits a tablet in landscape.
       column.accessor('kind', {

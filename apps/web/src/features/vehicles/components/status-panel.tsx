@@ -5,8 +5,7 @@ import { errorMessage } from '../../../lib/api-client';
 import { useMoveVehicle } from '../api/mutations';
 import { VehicleStatusBadge } from './status-badge';
 import { moveWords, statusWords } from './words';
-
-const dateTime = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+import { formatDateTime } from '../../../lib/dates';
 
 /** The current status, when it began, and buttons for the moves the vehicle may make next. */
 export function StatusPanel({ shopId, vehicle, canMove }: { shopId: string; vehicle: VehicleDetail; canMove: boolean }) {
@@ -17,7 +16,7 @@ export function StatusPanel({ shopId, vehicle, canMove }: { shopId: string; vehi
         Status
       </h2>
       <p className="flex flex-wrap items-center gap-2">
-        <VehicleStatusBadge status={vehicle.status} /> <span className="text-ink-muted">since {dateTime.format(new Date(vehicle.statusSince))}</span>
+        <VehicleStatusBadge status={vehicle.status} /> <span className="text-ink-muted">since {formatDateTime((vehicle.statusSince))}</span>
       </p>
       {canMove && vehicle.nextStatuses.length > 0 && (
         <div className="flex flex-wrap gap-2">

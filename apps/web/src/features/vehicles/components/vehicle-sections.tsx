@@ -7,9 +7,7 @@ import { useTimeline, useVehicleFitment } from '../api/get-vehicle';
 import { useAddOdometerReading, useRecordNumbersCheck } from '../api/mutations';
 import { optionalInteger } from './form-bits';
 import { formatOdometer } from './words';
-
-const day = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium' });
-const dayTime = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+import { formatCalendarDate, formatDateTime } from '../../../lib/dates';
 
 /** Odometer readings, newest first, each as read and in the shop's unit; with a form to add one. */
 export function OdometerPanel({ shopId, vehicle, shopUnit, canEdit }: { shopId: string; vehicle: VehicleDetail; shopUnit: 'mi' | 'km'; canEdit: boolean }) {
@@ -63,7 +61,7 @@ export function OdometerPanel({ shopId, vehicle, shopUnit, canEdit }: { shopId: 
           <tbody>
             {vehicle.odometerReadings.map((r) => (
               <tr key={r.id} className="border-b border-line">
-                <td className="py-2 pr-3">{day.format(new Date(`${r.readOn}T12:00:00Z`))}</td>
+                <td className="py-2 pr-3">{formatCalendarDate(r.readOn)}</td>
                 <td className="py-2 pr-3 text-right">
                   <Num>{formatOdometer(r.value, r.unit, shopUnit)}</Num>
                 </td>
@@ -120,7 +118,7 @@ export function NumbersPanel({ shopId, vehicle, canEdit }: { shopId: string; veh
         <p>
           <span className="font-bold">{vehicle.numbersMatching ? '✓ Matching' : '✗ Not matching'}</span> the documents
           {vehicle.numbersCheckedBy ? ` — checked by ${vehicle.numbersCheckedBy.name}` : ''}
-          {vehicle.numbersCheckedAt ? ` on ${dayTime.format(new Date(vehicle.numbersCheckedAt))}` : ''}.
+          {vehicle.numbersCheckedAt ? ` on ${formatDateTime((vehicle.numbersCheckedAt))}` : ''}.
           {vehicle.numbersNote && <span className="block text-ink-muted">{vehicle.numbersNote}</span>}
         </p>
       )}
@@ -165,7 +163,7 @@ export function TimelinePanel({ shopId, vehicleId }: { shopId: string; vehicleId
               </span>
               <p className="font-bold">{e.title}</p>
               <p className="text-sm text-ink-muted">
-                <time dateTime={e.at}>{dayTime.format(new Date(e.at))}</time>
+                <time dateTime={e.at}>{formatDateTime((e.at))}</time>
                 {e.by ? ` · ${e.by.name}` : ''}
               </p>
               {e.detail && <p className="text-sm">{e.detail}</p>}

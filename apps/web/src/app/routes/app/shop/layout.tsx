@@ -8,6 +8,7 @@ import { billingStatusQueryOptions } from '../../../../features/billing/api/get-
 import { BillingNotice } from '../../../../features/billing/components/billing-notice';
 import { meQueryOptions, useMe } from '../../../../lib/auth';
 import { clearShopCaches } from '../../../../lib/query-client';
+import { formatDateTime } from '../../../../lib/dates';
 
 /** A shop the person does not belong to is "not found", never a hint that it exists. */
 export const clientLoader =
@@ -51,8 +52,6 @@ export default function ShopLayoutRoute() {
   );
 }
 
-const untilFormat = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
-
 /** Shown to a platform admin inside a shop whose owner granted support access. */
 function SupportAccessNotice({ shopName, until }: { shopName: string; until: string }) {
   return (
@@ -60,7 +59,7 @@ function SupportAccessNotice({ shopName, until }: { shopName: string; until: str
       <div className="flex min-w-0 flex-1 flex-col gap-1">
         <h2 className="font-bold">Support access to {shopName}</h2>
         <p className="max-w-prose">
-          Its owner granted access until <time dateTime={until}>{untilFormat.format(new Date(until))}</time>. Everything you open or change here is
+          Its owner granted access until <time dateTime={until}>{formatDateTime((until))}</time>. Everything you open or change here is
           recorded and shown to the owner. Staff, API keys and billing stay with the shop.
         </p>
       </div>
