@@ -3,9 +3,35 @@ import type { PurchaseOrderStatus } from '@tappet/contracts';
 import type { Database } from '../../db/write-lock';
 import { PartEntity } from '../catalogue/catalogue.entity';
 import { createBin, receiveStock } from '../stock/stock.service';
-import { ListingEntity, PurchaseOrderEntity, PurchaseOrderLineEntity, SupplierEntity, SupplierReturnEntity } from './purchasing.entity';
+import { ListingEntity, PurchaseOrderEntity, PurchaseOrderLineEntity, SupplierEntity, SupplierReturnEntity, type PurchaseOrderRow } from './purchasing.entity';
 
 /** Ids of a small purchasing world for route tests; records that a call uses up are handed out one per call. */
+/** A purchase order row written straight to the database, in GBP, as of `at` (no lines). */
+export function fixtureOrderRow(o: { shopId: string; number: number; supplierId: string; status: PurchaseOrderStatus; totalMinor: number; at: Date }): PurchaseOrderRow {
+  return {
+    id: randomUUID(),
+    shopId: o.shopId,
+    number: o.number,
+    supplierId: o.supplierId,
+    status: o.status,
+    currency: 'GBP',
+    exchangeRate: '1',
+    totalMinor: o.totalMinor,
+    totalShopMinor: o.totalMinor,
+    note: null,
+    createdByUserId: null,
+    approvalRequestedAt: o.status === 'awaiting_approval' ? o.at : null,
+    approvedByUserId: null,
+    approvedAt: null,
+    rejectionReason: null,
+    sentAt: o.status === 'sent' ? o.at : null,
+    closedReason: null,
+    closedAt: null,
+    createdAt: o.at,
+    updatedAt: o.at,
+  };
+}
+
 export interface PurchasingFixture {
   supplierId: string;
   supplierName: string;
@@ -54,29 +80,9 @@ export async function seedPurchasingFixture(db: Database, shopId: string, spare 
     let number = Number(row?.n ?? 0);
     for (const status of ['draft', 'awaiting_approval', 'sent'] as const satisfies PurchaseOrderStatus[]) {
       for (let i = 0; i < spare * (status === 'draft' ? 4 : 2); i++) {
-        const id = randomUUID();
-        await manager.insert(PurchaseOrderEntity, {
-          id,
-          shopId,
-          number: ++number,
-          supplierId: supplier.id,
-          status,
-          currency: 'GBP',
-          exchangeRate: '1',
-          totalMinor: 100_000,
-          totalShopMinor: 100_000,
-          note: null,
-          createdByUserId: null,
-          approvalRequestedAt: status === 'awaiting_approval' ? at : null,
-          approvedByUserId: null,
-          approvedAt: null,
-          rejectionReason: null,
-          sentAt: status === 'sent' ? at : null,
-          closedReason: null,
-          closedAt: null,
-          createdAt: at,
-          updatedAt: at,
-        });
+        const row = fixtureOrderRow({ shopId, number: ++number, supplierId: supplier.id, status, totalMinor: 100_000, at });
+        const { id } = row;
+        await manager.insert(PurchaseOrderEntity, row);
         const lineId = randomUUID();
         await manager.insert(PurchaseOrderLineEntity, { id: lineId, shopId, orderId: id, position: 1, partId: main.id, supplierNumber: null, description: main.description, quantity: 100, receivedQuantity: 0, cancelledQuantity: 0, unitPriceMinor: 1000, coreDepositMinor: 0, purpose: null, specialOrderId: null });
         lines.set(id, lineId);

@@ -1,10 +1,10 @@
-import { randomUUID } from 'node:crypto';
 import { purchaseOrderListLimit } from '@tappet/contracts';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestContext, csrf, seedShop, signedInAgent, type TestContext } from '../../../test-support/test-app';
 import { AuditEventEntity } from '../../audit/audit.entity';
 import { HoldEntity, StockPoolEntity } from '../../stock/stock.entity';
 import { PurchaseOrderEntity } from '../purchasing.entity';
+import { fixtureOrderRow } from '../purchasing.test-fixture';
 import { addBin, addPart, addSupplier, post, type Agent } from './helpers';
 
 let ctx: TestContext;
@@ -210,28 +210,7 @@ describe('the orders list', () => {
     const quiet = await addSupplier(who, id, { name: 'Tolland Fittings' });
     // Years of orders, written in one go: 501 sent to one supplier, then two drafts to another.
     const at = new Date('2026-03-01T09:00:00Z');
-    const row = (number: number, supplierId: string, status: 'sent' | 'draft') => ({
-      id: randomUUID(),
-      shopId: id,
-      number,
-      supplierId,
-      status,
-      currency: 'GBP',
-      exchangeRate: '1',
-      totalMinor: 1000,
-      totalShopMinor: 1000,
-      note: null,
-      createdByUserId: null,
-      approvalRequestedAt: null,
-      approvedByUserId: null,
-      approvedAt: null,
-      rejectionReason: null,
-      sentAt: status === 'sent' ? at : null,
-      closedReason: null,
-      closedAt: null,
-      createdAt: at,
-      updatedAt: at,
-    });
+    const row = (number: number, supplierId: string, status: 'sent' | 'draft') => fixtureOrderRow({ shopId: id, number, supplierId, status, totalMinor: 1000, at });
     const rows = [...Array.from({ length: purchaseOrderListLimit + 1 }, (_, i) => row(i + 1, busy, 'sent')), row(purchaseOrderListLimit + 2, quiet, 'draft'), row(purchaseOrderListLimit + 3, quiet, 'draft')];
     await ctx.db.write((m) => m.insert(PurchaseOrderEntity, rows));
 
