@@ -19,6 +19,7 @@ export {
   type SelectOption,
 } from './form-field';
 export { DataTable, createColumnHelper, type DataTableProps, type ColumnDef, type SortingState } from './data-table';
+export { Panel, type PanelProps } from './panel';
 export { Dialog, ConfirmDialog, FormDialogFooter, type DialogProps, type ConfirmDialogProps, type FormDialogFooterProps } from './dialog';
 export { ToastProvider, useToast, type Toast, type ToastTone } from './toast';
 export { Badge, StatusPill, statusWords, type BadgeTone, type Status } from './badge';

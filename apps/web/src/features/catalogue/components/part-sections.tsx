@@ -1,5 +1,5 @@
 import type { Fitment, LineageGraphResponse, PartDetailResponse, PartLink } from '@tappet/contracts';
-import { Button, ConfirmDialog, ErrorState, LoadingState, useToast } from '@tappet/ui';
+import { Button, ConfirmDialog, ErrorState, LoadingState, Panel, useToast } from '@tappet/ui';
 import { lazy, Suspense, useState } from 'react';
 import { errorMessage } from '../../../lib/api-client';
 import { useDeleteFitment } from '../api/delete-fitment';
@@ -8,7 +8,6 @@ import { FitmentsTable } from './fitments-table';
 import { LineageList } from './lineage-list';
 import { LineagePicture } from './lineage-picture';
 import { LinksTable } from './links-table';
-import { Section } from './part-section';
 import { kindWords } from './words';
 
 // The link and fitment forms (checked with the contracts' schemas, so zod) load when first opened.
@@ -39,7 +38,7 @@ export function PartSections({ shopId, detail, lineage, canEdit }: PartSectionsP
 
   return (
     <>
-      <Section title="Lineage" id="lineage-title">
+      <Panel title="Lineage" id="lineage-title">
         {lineage.isPending ? (
           <LoadingState label="Loading the lineage…" />
         ) : lineage.error || !lineage.data ? (
@@ -53,9 +52,9 @@ export function PartSections({ shopId, detail, lineage, canEdit }: PartSectionsP
             </div>
           </div>
         )}
-      </Section>
+      </Panel>
 
-      <Section
+      <Panel
         title="Links from this part"
         id="links-from-title"
         actions={
@@ -75,9 +74,9 @@ export function PartSections({ shopId, detail, lineage, canEdit }: PartSectionsP
           onEdit={canEdit ? (link) => setLinkDialog({ link }) : undefined}
           onDelete={canEdit ? setDeletingLink : undefined}
         />
-      </Section>
+      </Panel>
 
-      <Section title="Links to this part" id="links-to-title">
+      <Panel title="Links to this part" id="links-to-title">
         <LinksTable
           shopId={shopId}
           links={linksTo}
@@ -87,9 +86,9 @@ export function PartSections({ shopId, detail, lineage, canEdit }: PartSectionsP
           onEdit={canEdit ? (link) => setLinkDialog({ link }) : undefined}
           onDelete={canEdit ? setDeletingLink : undefined}
         />
-      </Section>
+      </Panel>
 
-      <Section
+      <Panel
         title="Fitment"
         id="fitment-title"
         actions={
@@ -105,7 +104,7 @@ export function PartSections({ shopId, detail, lineage, canEdit }: PartSectionsP
           onEdit={canEdit ? (fitment) => setFitmentDialog({ fitment }) : undefined}
           onDelete={canEdit ? setDeletingFitment : undefined}
         />
-      </Section>
+      </Panel>
 
       <Suspense fallback={null}>
         {linkDialog && <LinkFormDialog shopId={shopId} open onClose={() => setLinkDialog(null)} from={part} link={linkDialog.link} />}

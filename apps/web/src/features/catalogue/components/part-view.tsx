@@ -1,10 +1,9 @@
 import type { LineageGraphResponse, PartDetailResponse } from '@tappet/contracts';
-import { Button, IconAdvise, IconOk, LoadingState, PartNumber } from '@tappet/ui';
+import { Button, IconAdvise, IconOk, LoadingState, Panel, PartNumber } from '@tappet/ui';
 import { lazy, Suspense, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { PartStatusPill } from './part-badges';
-import { Section } from './part-section';
 import { originWords, problemTitles, problemWords, quantityWords } from './words';
 
 /** "Current orderable number: …", or why there is none. */
@@ -116,7 +115,7 @@ export function PartView({ shopId, detail, lineage, canEdit, showSections }: Par
         )}
       </div>
 
-      <Section title="Details" id="details-title">
+      <Panel title="Details" id="details-title">
         <dl className="grid grid-cols-1 gap-x-6 gap-y-3 sm:grid-cols-[max-content_1fr]">
           <dt className="font-bold">Number as printed</dt>
           <dd>
@@ -153,7 +152,7 @@ export function PartView({ shopId, detail, lineage, canEdit, showSections }: Par
             </>
           )}
         </dl>
-      </Section>
+      </Panel>
 
       {showSections ? (
         <Suspense fallback={sectionsLoading}>

@@ -1,6 +1,6 @@
 import { jobStatusWords, type Checklist, type JobDetail, type JobStatus } from '@tappet/contracts';
 import { safetyDeferral, type PressureUnit } from '@tappet/domain';
-import { Button, buttonClasses, Caution, ConfirmDialog, Dialog, FormDialogFooter, FormMessage, PartNumber, Select, TextField, useToast, inputClasses } from '@tappet/ui';
+import { Button, buttonClasses, Caution, ConfirmDialog, Dialog, FormDialogFooter, FormMessage, inputClasses, Panel, PartNumber, Select, TextField, useToast } from '@tappet/ui';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
@@ -42,21 +42,6 @@ const specialOrderWords: Record<JobDetail['specialOrders'][number]['status'], st
 
 const moveLabels: Record<JobStatus, string> = { open: 'Reopen', in_progress: 'Start work', waiting_parts: 'Waiting for parts', done: 'Mark done', cancelled: 'Cancel job' };
 
-function Section({ title, children, actions }: { title: string; children: React.ReactNode; actions?: React.ReactNode }) {
-  const id = `section-${title.toLowerCase().replace(/[^a-z]+/g, '-')}`;
-  return (
-    <section aria-labelledby={id} className="rounded-md border-2 border-line bg-surface p-4">
-      <div className="mb-3 flex flex-wrap items-center justify-between gap-2">
-        <h2 id={id} className="text-lg font-bold">
-          {title}
-        </h2>
-        {actions}
-      </div>
-      {children}
-    </section>
-  );
-}
-
 /** The job page: request, people, status moves, safety blockers, checklists, parts, labour and cost. */
 export function JobView({ shopId, job, can, pressureUnit, meId, formatMoney }: { shopId: string; job: JobDetail; can: JobPermissions; pressureUnit: PressureUnit; meId: string | null; formatMoney: (minor: number) => string }) {
   const toast = useToast();
@@ -78,7 +63,7 @@ export function JobView({ shopId, job, can, pressureUnit, meId, formatMoney }: {
 
   return (
     <div className="flex flex-col gap-6">
-      <Section
+      <Panel
         title="The job"
         actions={
           can.work && (
@@ -155,7 +140,7 @@ export function JobView({ shopId, job, can, pressureUnit, meId, formatMoney }: {
         )}
         {assigning && <AssignDialog shopId={shopId} job={job} onClose={() => setAssigning(false)} />}
         {editing && <EditJobDialog shopId={shopId} job={job} onClose={() => setEditing(false)} />}
-      </Section>
+      </Panel>
 
       <Blockers shopId={shopId} job={job} canSignOff={can.signOff} />
 
@@ -165,7 +150,7 @@ export function JobView({ shopId, job, can, pressureUnit, meId, formatMoney }: {
 
       <Labour shopId={shopId} job={job} editable={can.work && open} meId={meId} anyone={Boolean(can.assign)} formatMoney={formatMoney} />
 
-      <Section title="Cost so far">
+      <Panel title="Cost so far">
         <dl className="grid max-w-md grid-cols-2 gap-2">
           <dt>Parts at cost</dt>
           <dd className="text-right font-mono tabular-nums">{formatMoney(job.cost.partsMinor)}</dd>
@@ -174,11 +159,11 @@ export function JobView({ shopId, job, can, pressureUnit, meId, formatMoney }: {
           <dt className="font-bold">Total</dt>
           <dd className="text-right font-mono font-bold tabular-nums">{formatMoney(job.cost.totalMinor)}</dd>
         </dl>
-      </Section>
+      </Panel>
 
-      <Section title="Photos">
+      <Panel title="Photos">
         <JobPhotos shopId={shopId} job={job} canUpload={can.work} />
-      </Section>
+      </Panel>
     </div>
   );
 }
@@ -191,7 +176,7 @@ function Blockers({ shopId, job, canSignOff }: { shopId: string; job: JobDetail;
   const failed = job.blockers.filter((b) => b.reason === 'failed');
   const unrecorded = job.blockers.filter((b) => b.reason === 'unrecorded');
   return (
-    <Section title="Safety-critical items">
+    <Panel title="Safety-critical items">
       {job.blockers.length > 0 && (
         <>
           <p className="mb-2">
@@ -244,7 +229,7 @@ function Blockers({ shopId, job, canSignOff }: { shopId: string; job: JobDetail;
         </ul>
       )}
       {signing && <SignOffDialog shopId={shopId} jobId={job.id} blocker={signing} onClose={() => setSigning(null)} />}
-    </Section>
+    </Panel>
   );
 }
 
@@ -286,7 +271,7 @@ function Checklists({ shopId, job, editable, pressureUnit }: { shopId: string; j
   const start = useStartChecklist(shopId, job.id);
   const [templateId, setTemplateId] = useState('');
   return (
-    <Section title="Checklists">
+    <Panel title="Checklists">
       <p className="mb-4 text-sm text-ink-muted">{safetyDeferral}</p>
       {job.checklists.length === 0 && <p className="mb-4">No checklist on this job yet.</p>}
       {job.checklists.map((c) => (
@@ -300,7 +285,7 @@ function Checklists({ shopId, job, editable, pressureUnit }: { shopId: string; j
           </Button>
         </div>
       )}
-    </Section>
+    </Panel>
   );
 }
 
@@ -374,7 +359,7 @@ function Parts({ shopId, job, can, open, formatMoney }: { shopId: string; job: J
   const run = (p: Promise<unknown>) => p.then(() => setError(null), (e: unknown) => setError(errorMessage(e)));
   const activeHolds = job.holds.filter((h) => h.status === 'active');
   return (
-    <Section title="Parts">
+    <Panel title="Parts">
       {error && <FormMessage>{error}</FormMessage>}
       {open && (can.hold || can.work) && <PartsFinder shopId={shopId} jobId={job.id} canHold={can.hold} canOrder={can.work} />}
       <h3 className="mb-2 font-bold">Held for this job</h3>
@@ -458,7 +443,7 @@ function Parts({ shopId, job, can, open, formatMoney }: { shopId: string; job: J
           </ul>
         </>
       )}
-    </Section>
+    </Panel>
   );
 }
 
@@ -484,7 +469,7 @@ function Labour({ shopId, job, editable, meId, anyone, formatMoney }: { shopId: 
     );
   };
   return (
-    <Section title="Labour">
+    <Panel title="Labour">
       <ConfirmDialog
         open={removing !== null}
         destructive
@@ -545,6 +530,6 @@ function Labour({ shopId, job, editable, meId, anyone, formatMoney }: { shopId: 
           {error && <FormMessage>{error}</FormMessage>}
         </form>
       )}
-    </Section>
+    </Panel>
   );
 }

@@ -1,5 +1,5 @@
 import type { QueryClient } from '@tanstack/react-query';
-import { ErrorState, LoadingState } from '@tappet/ui';
+import { ErrorState, LoadingState, Panel } from '@tappet/ui';
 import { useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { PageHeader } from '../../../../components/layouts/page-header';
 import { RoleWelcome } from '../../../../features/home/components/role-welcome';
@@ -36,10 +36,7 @@ export default function ShopHomeRoute() {
       <div className="flex flex-col gap-6">
         <RoleWelcome firstName={firstName} membership={membership} shopCount={me.memberships.length} />
         {canRename && (
-          <section aria-labelledby="rename-title" className="flex flex-col gap-4 rounded-lg border-2 border-line bg-surface p-5">
-            <h2 id="rename-title" className="text-lg font-bold">
-              Rename the shop
-            </h2>
+          <Panel title="Rename the shop" id="rename-title">
             {shop.isPending ? (
               <LoadingState label="Loading the shop…" />
             ) : shop.isError ? (
@@ -47,7 +44,7 @@ export default function ShopHomeRoute() {
             ) : (
               <ShopNameForm shopId={shopId} currentName={shop.data.name} />
             )}
-          </section>
+          </Panel>
         )}
       </div>
     </>

@@ -1,5 +1,5 @@
 import type { QueryClient } from '@tanstack/react-query';
-import { EmptyState, ErrorState, LoadingState } from '@tappet/ui';
+import { EmptyState, ErrorState, LoadingState, Panel } from '@tappet/ui';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { PageHeader } from '../../../../components/layouts/page-header';
 import { paths } from '../../../../config/paths';
@@ -68,17 +68,11 @@ export default function ShopSettingsRoute() {
           )}
         </section>
         {canExport && (
-          <section aria-labelledby="export-title" className="flex flex-col gap-4 rounded-lg border-2 border-line bg-surface p-5">
-            <h2 id="export-title" className="text-lg font-bold">
-              Download everything
-            </h2>
+          <Panel title="Download everything" id="export-title">
             <ExportPanel shopId={shopId} />
-          </section>
+          </Panel>
         )}
-        <section aria-labelledby="details-title" className="flex flex-col gap-4 rounded-lg border-2 border-line bg-surface p-5">
-          <h2 id="details-title" className="text-lg font-bold">
-            On Tappet
-          </h2>
+        <Panel title="On Tappet" id="details-title">
           {shop.isPending ? (
             <LoadingState label="Loading the shop…" />
           ) : shop.isError ? (
@@ -86,7 +80,7 @@ export default function ShopSettingsRoute() {
           ) : (
             <ShopDetails shop={shop.data} />
           )}
-        </section>
+        </Panel>
       </div>
     </>
   );
