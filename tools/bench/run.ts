@@ -5,6 +5,7 @@
 //                                          lighthouse); their sections are replaced, the other
 //                                          benchmarks' sections are kept with their own dates
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { loadavg } from 'node:os';
 import { calibrationMs, machineDescription, type Figure } from './harness';
 import { runHttpBench } from './http.bench';
 import { runImportBench } from './import.bench';
@@ -34,10 +35,12 @@ const fresh: Section[] = [];
 for (const name of chosen) {
   console.error(`▶ ${name}`);
   const started = new Date();
+  // The machine is shared: the load when a benchmark starts says how far to trust its times.
+  const load = loadavg()[0]!.toFixed(1);
   const figures = await benches[name]!();
   // The baseline ratio only means something for times measured in this process's own units.
   for (const f of figures) if (f.unit === 'ms' && name !== 'http' && name !== 'lighthouse') f.ratio = f.median / baseline;
-  fresh.push({ bench: name, measured: `${started.toISOString().slice(0, 16).replace('T', ' ')} UTC`, machine, baselineMs: baseline, rows: figures.map(figureRow) });
+  fresh.push({ bench: name, measured: `${started.toISOString().slice(0, 16).replace('T', ' ')} UTC (load average ${load} at the start)`, machine, baselineMs: baseline, rows: figures.map(figureRow) });
 }
 
 const old = existsSync(page) ? parseSections(readFileSync(page, 'utf8')) : [];
