@@ -1,7 +1,7 @@
 import Fuse from 'fuse.js';
-import { foldedTyposWithinKeyOrTail, foldLookalikes, lineageReason, validateGs1, matchDescription, matchNumber, mergeHits, MIN_SUBSTRING_QUERY, normalisePartNumber, type LineageGraph, type SearchHit } from '@tappet/domain';
+import { foldLookalikes, lineageReason, validateGs1, matchDescription, matchNumber, mergeHits, MIN_SUBSTRING_QUERY, normalisePartNumber, type LineageGraph, type SearchHit } from '@tappet/domain';
 import type { PartSearchQueryParsed, PartSearchResponse, StockSummary } from '@tappet/contracts';
-import type { PartSearchFilters, PartSearchIndex, SearchablePart } from './part-search-index';
+import { keysWithinTypos, type PartSearchFilters, type PartSearchIndex, type SearchablePart } from './part-search-index';
 
 /** How many typo candidates the index hands over for exact distance and re-ranking. */
 export const TYPO_CANDIDATES = 500;
@@ -11,25 +11,6 @@ const SUBSTRING_CANDIDATES = 200;
 const MAX_TYPO_KEY = 42;
 /** Options asked of the lineage engine per exact hit. */
 const LINEAGE_OPTIONS = 20;
-
-/**
- * Whether a typed key is within the typo tolerance of one of a candidate's folded keys
- * (space-separated, as the index holds them) or of one of their tails (the prefix left out).
- */
-export function nearEnough(key: string, keys: string): boolean {
-  return nearEnoughFolded(foldLookalikes(key), keys);
-}
-
-/** `nearEnough` for a typed key already folded (the index's keys are folded when indexed). */
-function nearEnoughFolded(folded: string, keys: string): boolean {
-  for (let start = 0; start < keys.length; ) {
-    let end = keys.indexOf(' ', start);
-    if (end < 0) end = keys.length;
-    if (end > start && foldedTyposWithinKeyOrTail(folded, keys, start, end, MIN_SUBSTRING_QUERY)) return true;
-    start = end + 1;
-  }
-  return false;
-}
 
 /**
  * Gives each scored hit its fuse.js score as a tie-break, where one can matter: only hits sharing
@@ -111,7 +92,7 @@ export function createLookupService(deps: {
       // Only candidates that can match are loaded: numbers within the typo tolerance (also without
       // their prefix), descriptions whose words all meet the typed words.
       const folded = foldLookalikes(key);
-      const typoIds = typoCandidates.filter((c) => nearEnoughFolded(folded, c.keys)).map((c) => c.id);
+      const typoIds = typoCandidates.filter((c) => keysWithinTypos(folded, c.keys)).map((c) => c.id);
       const descriptionIds = descriptionCandidates.filter((c) => matchDescription(q, c.description) !== null).map((c) => c.id);
 
       // Lineage starts from exact hits whatever the filters; the filters then apply to every result.

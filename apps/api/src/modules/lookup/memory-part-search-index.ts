@@ -1,7 +1,7 @@
 import type { EntityManager } from 'typeorm';
-import { foldLookalikes, trigramsOf, wordsOf, type PartNumberEntry } from '@tappet/domain';
+import { foldLookalikes, trigramsOf, typoTolerance, wordsOf, type PartNumberEntry } from '@tappet/domain';
 import { breathe } from '../../lib/breathe';
-import { oneEditPatterns, type PartSearchFilters, type PartSearchIndex, type SearchablePart, type SearchCandidate } from './part-search-index';
+import { keysWithinTypos, oneEditPatterns, type PartSearchFilters, type PartSearchIndex, type SearchablePart, type SearchCandidate } from './part-search-index';
 
 // An in-memory `PartSearchIndex` (docs/decisions/014): each shop's searchable text is read from the
 // database once per catalogue version and held in compact structures, so a lookup runs no SQL
@@ -40,6 +40,8 @@ interface ShopIndex {
   categories: Array<string | null>;
   /** The FTS `keys` column: every folded key space-separated and space-padded (" 713456 12345 "). */
   keysText: string[];
+  /** Which of 0–9 and A–Z each document's keys hold, two words per document (see `symbolOf`). */
+  keyMasks: Uint32Array;
   /** The FTS `description` column. */
   descriptions: string[];
   /** Raw key (own, supplier, unlinked equivalent) → documents: exact lookups. */
@@ -230,6 +232,41 @@ const reverse = (s: string) => {
   return out;
 };
 
+/** A folded key's character as a bit of a character mask (0–9, then A–Z: 36 bits in two words), or -1 for any other. */
+const symbolOf = (c: number) => (c >= 48 && c <= 57 ? c - 48 : c >= 65 && c <= 90 ? c - 55 : -1);
+
+/** Sets document `doc`'s bits in `masks` for the characters of its keys text. */
+export function markCharacters(masks: Uint32Array, doc: number, text: string): void {
+  for (let i = 0; i < text.length; i++) {
+    const symbol = symbolOf(text.charCodeAt(i));
+    if (symbol >= 0) masks[2 * doc + (symbol >> 5)]! |= 1 << (symbol & 31);
+  }
+}
+
+/**
+ * A test that turns away the documents whose keys lack more of the typed key's characters (with
+ * repeats) than the largest typo tolerance: each edit supplies at most one missing character, so
+ * none of their keys, nor any tail of one, can be near enough. It reads two words per document
+ * instead of the document's text, and turns away most trigram neighbours.
+ */
+export function lackingTooMany(masks: Uint32Array, folded: string): (doc: number) => boolean {
+  const wanted: number[] = [];
+  for (let i = 0; i < folded.length; i++) {
+    const symbol = symbolOf(folded.charCodeAt(i));
+    if (symbol >= 0) wanted.push(symbol); // any other character is never counted missing
+  }
+  const largest = typoTolerance(Number.MAX_SAFE_INTEGER);
+  return (doc) => {
+    const low = masks[2 * doc]!;
+    const high = masks[2 * doc + 1]!;
+    let missing = 0;
+    for (const symbol of wanted) {
+      if ((((symbol < 32 ? low : high) >>> (symbol & 31)) & 1) === 0 && ++missing > largest) return true;
+    }
+    return false;
+  };
+}
+
 /** Builds one shop's index from its rows (parts in rowid order; numbers ordered by part, then key), yielding to the event loop between slices. */
 export async function buildShopIndex(
   parts: Array<Omit<SearchablePart, 'numbers' | 'category'> & { category: string | null }>,
@@ -282,6 +319,7 @@ export async function buildShopIndex(
   const keysLower: string[] = new Array<string>(size);
   const descriptionsLower: string[] = new Array<string>(size);
   const keysText: string[] = new Array<string>(size);
+  const keyMasks = new Uint32Array(2 * size);
   const rowTokens = new Int32Array(size);
   let totalTokens = 0;
 
@@ -297,6 +335,7 @@ export async function buildShopIndex(
     const folded = [part.key, ...supplierKeys[doc]!, ...equivalentKeys[doc]!].map(foldLookalikes);
     const text = ` ${folded.join(' ')} `;
     keysText[doc] = text;
+    markCharacters(keyMasks, doc, text);
     for (const k of folded) {
       addKey(byFoldedKey, k, doc);
       addKey(byReversedKey, reverse(k), doc);
@@ -314,6 +353,7 @@ export async function buildShopIndex(
     docOf,
     categories,
     keysText,
+    keyMasks,
     descriptions,
     byRawKey,
     prefixKeys: await sortedKeys(prefixKeys, slice),
@@ -340,8 +380,10 @@ function likeGap(text: string, spacedHead: string, spacedTail: string): boolean 
  * Documents best by BM25 for an OR of trigrams in one column, as FTS5's `ORDER BY rank` orders
  * them: for each trigram, idf · f·(k1+1) / (f + k1·(1 − b + b·|D|/avgdl)), summed. n(q) and N are
  * this shop's (FTS5 counts the whole table), so only the order far down a long list can differ.
+ * Of the best `limit`, only those `keep` accepts are returned, best first: the caller's own test
+ * runs before any row is touched, and only the few kept are sorted.
  */
-function bestByBm25(index: ShopIndex, postings: GramTable, grams: readonly string[], pass: (doc: number) => boolean, limit: number): number[] {
+function bestByBm25(index: ShopIndex, postings: GramTable, grams: readonly string[], pass: (doc: number) => boolean, limit: number, keep: (doc: number) => boolean = () => true): number[] {
   const { scores, rowTokens, averageTokens, size } = index;
   const touched: number[] = [];
   for (const gram of grams) {
@@ -362,10 +404,57 @@ function bestByBm25(index: ShopIndex, postings: GramTable, grams: readonly strin
     }
   }
   const passing = touched.filter(pass);
-  passing.sort((a, b) => scores[b]! - scores[a]! || a - b);
-  const out = passing.slice(0, limit);
+  const out = bestByScore(passing, scores, limit).filter(keep);
+  out.sort((a, b) => scores[b]! - scores[a]! || a - b);
   for (const doc of touched) scores[doc] = 0;
   return out;
+}
+
+/**
+ * The `limit` documents best by score (ties to the lower document), in no particular order. A
+ * sort with a comparator over hundreds of documents was a large part of a typo lookup's time; the
+ * cut-off score comes from a selection over the scores alone.
+ */
+export function bestByScore(docs: readonly number[], scores: Float64Array, limit: number): number[] {
+  if (limit <= 0) return [];
+  if (limit >= docs.length) return [...docs];
+  const values = new Float64Array(docs.length);
+  for (let i = 0; i < docs.length; i++) values[i] = scores[docs[i]!]!;
+  const cutOff = kthLargest(values, limit);
+  const out: number[] = [];
+  const tied: number[] = [];
+  for (const doc of docs) {
+    if (scores[doc]! > cutOff) out.push(doc);
+    else if (scores[doc] === cutOff) tied.push(doc);
+  }
+  tied.sort((a, b) => a - b);
+  for (let i = 0; out.length < limit; i++) out.push(tied[i]!);
+  return out;
+}
+
+/** The k-th largest of `values` (1 ≤ k ≤ length), by quickselect; reorders `values`. */
+export function kthLargest(values: Float64Array, k: number): number {
+  const target = values.length - k; // its place in ascending order
+  let lo = 0;
+  let hi = values.length - 1;
+  while (lo < hi) {
+    const pivot = values[(lo + hi) >>> 1]!;
+    let i = lo;
+    let j = hi;
+    while (i <= j) {
+      while (values[i]! < pivot) i++;
+      while (values[j]! > pivot) j--;
+      if (i <= j) {
+        const swap = values[i]!;
+        values[i++] = values[j]!;
+        values[j--] = swap;
+      }
+    }
+    if (target <= j) hi = j;
+    else if (target >= i) lo = i;
+    else break;
+  }
+  return values[target]!;
 }
 
 /** Occurrences of `needle` in `text`, overlapping ones too (each is a phrase instance to FTS5). */
@@ -598,13 +687,21 @@ export function memoryPartSearchIndex(options: MemoryPartSearchIndexOptions): Me
         if (head.length >= tail.length) withPrefix(index.foldedKeys, head, check);
         else withPrefix(index.reversedKeys, reverse(tail), check);
       }
-      const nearDocs = [...near].sort((a, b) => a - b);
-      const out = nearDocs.map((doc) => candidate(index, doc));
-      // Two typos (keys of 8 or more) only from trigrams: best effort, as in the SQLite index.
+      // Only candidates the lookup would keep are handed over (see PartSearchIndex.byTypos): most
+      // trigram neighbours are further off, and building each one's candidate reads its row.
+      const lacking = lackingTooMany(index.keyMasks, folded);
+      const within = (doc: number) => !lacking(doc) && keysWithinTypos(folded, index.keysText[doc]!);
+      const out = [...near]
+        .sort((a, b) => a - b)
+        .filter(within)
+        .map((doc) => candidate(index, doc));
+      // Two typos (keys of 8 or more) only from trigrams: best effort, as in the SQLite index. The
+      // SQLite index fills the rest of `limit` with the best by bm25 not already near.
       const grams = trigramsOf(folded.toLowerCase());
-      if (folded.length < MIN_TWO_TYPO_QUERY || grams.length === 0 || out.length >= limit) return out;
-      for (const doc of bestByBm25(index, index.keyGrams, grams, pass, limit)) if (!near.has(doc)) out.push(candidate(index, doc));
-      return out.slice(0, limit);
+      if (folded.length < MIN_TWO_TYPO_QUERY || grams.length === 0 || near.size >= limit) return out;
+      const rest = bestByBm25(index, index.keyGrams, grams, (doc) => pass(doc) && !near.has(doc), limit - near.size, within);
+      for (const doc of rest) out.push(candidate(index, doc));
+      return out;
     },
 
     async byDescription(shopId, text, filters, limit) {

@@ -1,5 +1,5 @@
 import type { EntityManager } from 'typeorm';
-import { foldLookalikes, trigramsOf, wordsOf, type NumberSource, type PartNumberEntry } from '@tappet/domain';
+import { foldedTyposWithinKeyOrTail, foldLookalikes, MIN_SUBSTRING_QUERY, trigramsOf, wordsOf, type NumberSource, type PartNumberEntry } from '@tappet/domain';
 import type { PartOrigin, PartStatusValue } from '@tappet/contracts';
 
 /** Narrows candidates: parts that fit a marque / model / year, of a category, of an origin. */
@@ -45,13 +45,30 @@ export interface PartSearchIndex {
   /**
    * Candidates for typos: every part with a number one edit (O/I folded) from this key, then parts
    * sharing the most trigrams with it (best by bm25), up to `limit`; each with its indexed text so
-   * the caller can measure the exact distance before loading anything.
+   * the caller can measure the exact distance before loading anything. An index may leave out
+   * candidates that `keysWithinTypos` turns away (the caller drops them anyway), but not change
+   * which of the others it returns.
    */
   byTypos(shopId: string, key: string, filters: PartSearchFilters, limit: number): Promise<SearchCandidate[]>;
   /** Parts whose description shares trigrams with the words typed, best first, with their indexed text. */
   byDescription(shopId: string, text: string, filters: PartSearchFilters, limit: number): Promise<SearchCandidate[]>;
   /** The parts with these ids in the shop that pass the filters, with all their numbers. */
   load(shopId: string, ids: readonly string[], filters: PartSearchFilters): Promise<SearchablePart[]>;
+}
+
+/**
+ * Whether a typed key (folded with `foldLookalikes`) is within the typo tolerance of one of the
+ * keys in an index's keys text (folded keys, space-separated) or of one of their tails (the
+ * printed prefix left out): the test every typo candidate must pass.
+ */
+export function keysWithinTypos(folded: string, keys: string): boolean {
+  for (let start = 0; start < keys.length; ) {
+    let end = keys.indexOf(' ', start);
+    if (end < 0) end = keys.length;
+    if (end > start && foldedTyposWithinKeyOrTail(folded, keys, start, end, MIN_SUBSTRING_QUERY)) return true;
+    start = end + 1;
+  }
+  return false;
 }
 
 /** An FTS5 string literal; our inputs are A–Z 0–9 or words of letters and digits, quoted all the same. */

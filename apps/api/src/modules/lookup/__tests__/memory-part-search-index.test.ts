@@ -2,14 +2,14 @@ import { randomUUID } from 'node:crypto';
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { partSearchQuerySchema, type PartSearchQuery } from '@tappet/contracts';
-import { normalisePartNumber } from '@tappet/domain';
+import { foldLookalikes, normalisePartNumber } from '@tappet/domain';
 import { createTestContext, csrf, onPostgres, seedShop, signedInAgent, type TestContext } from '../../../test-support/test-app';
 import { FitmentEntity, PartEntity, PartLinkEntity, PartSupplierNumberEntity } from '../../catalogue/catalogue.entity';
 import { createCatalogueService } from '../../catalogue/catalogue.service';
 import type { Agent } from '../../catalogue/__tests__/helpers';
 import { createLookupService } from '../lookup.service';
-import { memoryPartSearchIndex, sortYielding } from '../memory-part-search-index';
-import { sqlitePartSearchIndex } from '../part-search-index';
+import { bestByScore, kthLargest, lackingTooMany, markCharacters, memoryPartSearchIndex, sortYielding } from '../memory-part-search-index';
+import { keysWithinTypos, sqlitePartSearchIndex } from '../part-search-index';
 
 let ctx: TestContext;
 let shopId: string;
@@ -237,5 +237,52 @@ describe('sorting while letting other work run', () => {
       }),
       { numRuns: 300 },
     );
+  });
+});
+
+describe('choosing typo candidates without sorting them all', () => {
+  // Scores drawn from a few values, so ties at the cut-off are common.
+  const scored = fc.array(fc.constantFrom(0.5, 1, 1.25, 2, 3.75), { minLength: 1, maxLength: 60 });
+
+  it('the k-th largest value is the one a descending sort puts at k', () => {
+    fc.assert(
+      fc.property(scored, fc.nat(), (values, at) => {
+        const k = 1 + (at % values.length);
+        expect(kthLargest(Float64Array.from(values), k)).toBe([...values].sort((a, b) => b - a)[k - 1]);
+      }),
+      { numRuns: 500 },
+    );
+  });
+
+  it('the best documents by score, ties to the lower document, are those a full sort keeps', () => {
+    fc.assert(
+      fc.property(scored, fc.nat({ max: 70 }), (values, limit) => {
+        const scores = Float64Array.from(values);
+        // Documents in the order the postings first touch them: not sorted.
+        const docs = values.map((_, doc) => doc).reverse();
+        const expected = [...docs].sort((a, b) => scores[b]! - scores[a]! || a - b).slice(0, limit);
+        expect(bestByScore(docs, scores, limit).sort((a, b) => a - b)).toEqual(expected.sort((a, b) => a - b));
+      }),
+      { numRuns: 500 },
+    );
+  });
+
+  it('the character test never turns away keys within the typo tolerance', () => {
+    let turnedAway = 0;
+    const key = fc.string({ unit: fc.constantFrom('1', '3', '4', '5', 'O', 'R', 'P', 'X', 'É'), minLength: 1, maxLength: 10 });
+    fc.assert(
+      fc.property(key, fc.array(key, { minLength: 1, maxLength: 3 }), (typed, keys) => {
+        const folded = foldLookalikes(typed);
+        const text = ` ${keys.map(foldLookalikes).join(' ')} `;
+        const masks = new Uint32Array(2);
+        markCharacters(masks, 0, text);
+        const lacking = lackingTooMany(masks, folded)(0);
+        if (lacking) turnedAway++;
+        if (keysWithinTypos(folded, text)) expect(lacking).toBe(false);
+      }),
+      { numRuns: 2000 },
+    );
+    // The test has teeth: plenty of keys were turned away.
+    expect(turnedAway).toBeGreaterThan(100);
   });
 });
