@@ -1,12 +1,14 @@
 import { z } from 'zod';
 import { idSchema } from './common';
-import { interchanges, linkKinds, partOrigins, partStatuses } from './constants/catalogue';
+import { interchanges, linkKinds, partStatuses } from './constants/catalogue';
+import { partOriginSchema, printedNumberSchema } from './part-fields';
 
 export * from './constants/catalogue';
+// Split out so that other contracts use them without evaluating this whole module in the browser.
+export * from './part-fields';
+export * from './import-result';
 
 // The catalogue: parts, the links between their numbers, and what they fit (issue 4).
-
-export const partOriginSchema = z.enum(partOrigins, { error: 'Use genuine, reproduction or pattern.' });
 
 export const partStatusSchema = z.enum(partStatuses, { error: 'Use available, or nla for no longer available.' });
 
@@ -19,15 +21,6 @@ const optionalText = (max: number, label: string) =>
   text(max, label)
     .nullish()
     .transform((v) => (v ? v : null));
-
-/** A part number as printed: letters, digits and the separators people print between them. */
-export const printedNumberSchema = z
-  .string()
-  .trim()
-  .min(1, 'Enter the part number.')
-  .max(40, 'A part number has at most 40 characters.')
-  .regex(/[A-Za-z0-9]/, 'A part number needs at least one letter or digit.')
-  .regex(/^[A-Za-z0-9 .\-/_]+$/, 'Use letters, digits, spaces, dots, dashes, slashes or underscores only.');
 
 const partFields = {
   number: printedNumberSchema,
@@ -220,24 +213,6 @@ export const lineageGraphResponseSchema = z.object({
   truncated: z.boolean(),
 });
 export type LineageGraphResponse = z.infer<typeof lineageGraphResponseSchema>;
-
-export const importKinds = ['parts', 'links', 'fitments'] as const;
-export const importFieldsSchema = z.object({ kind: z.enum(importKinds), mode: z.enum(['preview', 'commit']) }).strict();
-
-export const importRowErrorSchema = z.object({ row: z.number().int(), column: z.string().nullable(), message: z.string() });
-export const importResultSchema = z.object({
-  kind: z.enum(importKinds),
-  mode: z.enum(['preview', 'commit']),
-  rows: z.number().int(),
-  added: z.number().int(),
-  changed: z.number().int(),
-  unchanged: z.number().int(),
-  /** A sample of what would be added or changed (the first rows), for the preview screen. */
-  sample: z.array(z.object({ row: z.number().int(), action: z.enum(['add', 'change', 'same']), summary: z.string() })),
-  errors: z.array(importRowErrorSchema),
-  committed: z.boolean(),
-});
-export type ImportResult = z.infer<typeof importResultSchema>;
 
 export const partIdParamsSchema = z.object({ shopId: idSchema, partId: idSchema }).strict();
 export const linkIdParamsSchema = z.object({ shopId: idSchema, linkId: idSchema }).strict();

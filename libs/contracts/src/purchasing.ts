@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { idSchema, emailSchema } from './common';
-import { importResultSchema, printedNumberSchema } from './catalogue';
+import { importResultSchema } from './import-result';
+import { printedNumberSchema } from './part-fields';
 import { stockConditionSchema } from './stock';
 
 // Purchasing (issue 8): suppliers, listings, the reorder list, purchase orders, receipts, returns.

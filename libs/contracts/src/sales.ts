@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { emailSchema, idSchema } from './common';
-import { partOrigins } from './catalogue';
+import { partOrigins } from './constants/catalogue';
 
 // Sales (issue 12): pricing rules, list prices, tax rates, invoices and credit notes, payments.
 // Money in integer minor units; quantities are decimal text (up to 4 places) so hours and parts

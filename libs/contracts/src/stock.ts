@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { idSchema } from './common';
-import { partOriginSchema } from './catalogue';
+import { partOriginSchema } from './part-fields';
 import { stockConditions } from './constants/stock';
 
 export * from './constants/stock';

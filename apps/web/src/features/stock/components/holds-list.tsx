@@ -8,7 +8,7 @@ import { errorMessage } from '../../../lib/api-client';
 import { useHolds } from '../api/get-holds';
 import { useValuation } from '../api/get-valuation';
 import { releaseHold, useStockMutation } from '../api/write-stock';
-import { StockActionDialog } from './stock-action-dialog';
+import { StockActionDialogOnDemand } from './stock-action-dialog-on-demand';
 import { BinWithCondition } from './bin-with-condition';
 
 const column = createColumnHelper<Hold>();
@@ -108,7 +108,7 @@ export function HoldsList({ shopId, holds: given }: { shopId: string; holds?: Ho
           })
         }
       />
-      <StockActionDialog
+      <StockActionDialogOnDemand
         shopId={shopId}
         action={issuing ? 'issue' : null}
         currency={currency}

@@ -7,7 +7,8 @@ import { useCan } from '../../../lib/ability';
 import { errorMessage } from '../../../lib/api-client';
 import { usePartStock } from '../api/get-part-stock';
 import { HoldsList } from './holds-list';
-import { StockActionDialog, type StockAction, type StockActionPreset } from './stock-action-dialog';
+import type { StockAction, StockActionPreset } from './stock-action-dialog';
+import { StockActionDialogOnDemand } from './stock-action-dialog-on-demand';
 import { conditionLabel, money } from './words';
 
 /** "3 free in B-04 (new), 1 in B-07 (used, good)" — or "none". */
@@ -187,7 +188,7 @@ export function PartStockPanel({ shopId, partId }: { shopId: string; partId: str
         </p>
       )}
 
-      <StockActionDialog shopId={shopId} action={dialog?.action ?? null} preset={dialog?.preset} currency={s.currency} onClose={() => setDialog(null)} />
+      <StockActionDialogOnDemand shopId={shopId} action={dialog?.action ?? null} preset={dialog?.preset} currency={s.currency} onClose={() => setDialog(null)} />
     </section>
   );
 }

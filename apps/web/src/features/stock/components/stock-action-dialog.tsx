@@ -162,7 +162,8 @@ export function StockActionDialog({ shopId, action, onClose, currency, preset = 
   const f = errors.fieldErrors;
   const field = (node: ReactNode) => node;
   const binSelect = (name: string, label: string, defaultValue?: string) => (
-    <Select label={label} name={name} options={binOptions} placeholder="Choose a bin" defaultValue={defaultValue ?? ''} error={f[name]} />
+    // Keyed on the list having arrived: a preset bin chosen before its option exists would be lost.
+    <Select key={bins.isSuccess ? 'bins' : 'no-bins'} label={label} name={name} options={binOptions} placeholder={bins.isPending ? 'Loading bins…' : 'Choose a bin'} defaultValue={defaultValue ?? ''} error={f[name]} />
   );
   const cost = (hint: string) => <TextField label={`Unit cost (${currency})`} name="unitCostMinor" inputMode="decimal" hint={hint} error={f.unitCostMinor} className="font-mono" autoComplete="off" />;
 
