@@ -51,7 +51,12 @@ test('receive into a bin, find it through a superseded number, hold it, issue it
   await replacement.click();
   await expect(page).toHaveURL(new RegExp(`/catalogue/${current.id}$`));
 
-  // Hold two for a job, then issue them from the hold.
+  // Hold two for a job, then issue them from the hold. The part's stock answer carries its holds:
+  // the page asks for no list of the shop's holds, nor for the whole valuation.
+  const wholeShopReads: string[] = [];
+  page.on('request', (request) => {
+    if (request.method() === 'GET' && /\/stock\/(holds|valuation)$/.test(new URL(request.url()).pathname)) wholeShopReads.push(request.url());
+  });
   const summary = page.getByTestId('part-stock-summary');
   await expect(summary).toHaveText('On hand 3 · held 0 · free 3');
   await page.getByRole('button', { name: 'Hold SJ-4411 from B-04, new' }).click();
@@ -71,6 +76,7 @@ test('receive into a bin, find it through a superseded number, hold it, issue it
   await expect(issueDialog).toBeHidden();
   await expect(summary).toHaveText('On hand 1 · held 0 · free 1');
   await expect(page.getByTestId('part-stock-value')).toContainText('£12.50');
+  expect(wholeShopReads).toEqual([]);
 
   // The value report follows, and the ledger shows the issue against the job.
   await page.goto(`/shops/${shopId}/stock/value`);

@@ -14,6 +14,7 @@ export function holdsQueryOptions(shopId: string, status: HoldStatus = 'active')
   return queryOptions({ queryKey: [...stockKey(shopId), 'holds', status], queryFn: ({ signal }) => getHolds(shopId, status, signal) });
 }
 
-export function useHolds(shopId: string, status: HoldStatus = 'active') {
-  return useQuery(holdsQueryOptions(shopId, status));
+/** `enabled: false` when the caller already has the holds (the part page's stock answer carries its own). */
+export function useHolds(shopId: string, status: HoldStatus = 'active', options: { enabled?: boolean } = {}) {
+  return useQuery({ ...holdsQueryOptions(shopId, status), enabled: options.enabled ?? true });
 }

@@ -13,8 +13,8 @@ export function valuationQueryOptions(shopId: string) {
   return queryOptions({ queryKey: [...stockKey(shopId), 'valuation'], queryFn: ({ signal }) => getValuation(shopId, signal) });
 }
 
-export function useValuation(shopId: string) {
-  return useQuery(valuationQueryOptions(shopId));
+export function useValuation(shopId: string, options: { enabled?: boolean } = {}) {
+  return useQuery({ ...valuationQueryOptions(shopId), enabled: options.enabled ?? true });
 }
 
 /** GET /api/shops/:shopId/stock/valuation/history: value at each month end and today. */

@@ -13,17 +13,21 @@ import { BinWithCondition } from './bin-with-condition';
 
 const column = createColumnHelper<Hold>();
 
-/** Holds still active: issue what they set aside, or release it (after a confirmation). */
-export function HoldsList({ shopId, holds: given }: { shopId: string; holds?: Hold[] }) {
-  const query = useHolds(shopId);
-  const currency = useValuation(shopId).data?.currency ?? 'GBP';
+/**
+ * Holds still active: issue what they set aside, or release it (after a confirmation). `given`:
+ * holds (and the shop's currency) the caller already has, e.g. one part's, so nothing is fetched.
+ */
+export function HoldsList({ shopId, given }: { shopId: string; given?: { holds: Hold[]; currency: string } }) {
+  const query = useHolds(shopId, 'active', { enabled: !given });
+  const valuation = useValuation(shopId, { enabled: !given });
+  const currency = given?.currency ?? valuation.data?.currency ?? 'GBP';
   const canHold = useCan('hold', 'Stock', { shopId });
   const canIssue = useCan('issue', 'Stock', { shopId });
   const [releasing, setReleasing] = useState<Hold | null>(null);
   const [issuing, setIssuing] = useState<Hold | null>(null);
   const release = useStockMutation(shopId, (s: string, holdId: string) => releaseHold(s, holdId));
   const toast = useToast();
-  const holds = given ?? query.data?.holds;
+  const holds = given?.holds ?? query.data?.holds;
 
   const columns = useMemo(
     () => [

@@ -1,15 +1,17 @@
 import type { StockSummary } from '@tappet/contracts';
 import { Button, ErrorState, LoadingState, Num, PartNumber } from '@tappet/ui';
-import { useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { useCan } from '../../../lib/ability';
 import { errorMessage } from '../../../lib/api-client';
 import { usePartStock } from '../api/get-part-stock';
-import { HoldsList } from './holds-list';
 import type { StockAction, StockActionPreset } from './stock-action-dialog';
 import { StockActionDialogOnDemand } from './stock-action-dialog-on-demand';
 import { conditionLabel, money } from './words';
+
+// Its table (and the table library) loads only for a part that has holds.
+const HoldsList = lazy(() => import('./holds-list').then((m) => ({ default: m.HoldsList })));
 
 /** "3 free in B-04 (new), 1 in B-07 (used, good)" — or "none". */
 export function stockWhere(stock: StockSummary): string {
@@ -137,7 +139,9 @@ export function PartStockPanel({ shopId, partId }: { shopId: string; partId: str
       {s.holds.length > 0 && (
         <div>
           <h3 className="mb-2 font-bold">Held</h3>
-          <HoldsList shopId={shopId} holds={s.holds} />
+          <Suspense fallback={<LoadingState label="Loading holds…" />}>
+            <HoldsList shopId={shopId} given={{ holds: s.holds, currency: s.currency }} />
+          </Suspense>
         </div>
       )}
 
