@@ -1,122 +1,79 @@
-import type * as DagreModule from '@dagrejs/dagre';
 import type { LineageGraphResponse } from '@tappet/contracts';
 import { useEffect, useState } from 'react';
-import { interchangeShort, kindShort, quantityWords } from '../components/words';
+import { layoutLineage, type Dagre, type LineageLayout } from './lineage-layout';
 
-type GraphNode = LineageGraphResponse['nodes'][number];
-type GraphEdge = LineageGraphResponse['edges'][number];
-
-export interface PlacedNode extends GraphNode {
-  /** Centre and size, in pixels. */
-  x: number;
-  y: number;
-  width: number;
-  height: number;
-}
-
-export interface PlacedEdge extends GraphEdge {
-  key: string;
-  label: string;
-  points: Array<{ x: number; y: number }>;
-  labelX: number;
-  labelY: number;
-  labelWidth: number;
-}
-
-export interface LineageLayout {
-  width: number;
-  height: number;
-  nodes: PlacedNode[];
-  edges: PlacedEdge[];
-}
-
-/** What a part's box says about it besides its number, one line each. */
-export type NodeMarker = 'focus' | 'current' | 'nla' | 'problem';
-
-export function markersOf(node: Pick<GraphNode, 'isFocus' | 'isCurrent' | 'status' | 'inProblem'>): NodeMarker[] {
-  const out: NodeMarker[] = [];
-  if (node.isFocus) out.push('focus');
-  if (node.isCurrent) out.push('current');
-  if (node.status === 'nla') out.push('nla');
-  if (node.inProblem) out.push('problem');
-  return out;
-}
-
-/** Box size: number and description, then one 20 px line per marker. */
-export function nodeSizeOf(node: Pick<GraphNode, 'isFocus' | 'isCurrent' | 'status' | 'inProblem'>): { width: number; height: number } {
-  return { width: 184, height: 78 + 20 * markersOf(node).length };
-}
-const labelHeight = 24;
-
-/** "replaced by ×2, one way", "contains ×4", "equivalent ×1, both ways". */
-export function edgeLabel(edge: Pick<GraphEdge, 'kind' | 'interchange' | 'quantity'>): string {
-  const how = interchangeShort(edge.kind, edge.interchange);
-  return `${kindShort[edge.kind]} ${quantityWords(edge.quantity)}${how ? `, ${how}` : ''}`;
-}
-
-type Dagre = Pick<typeof DagreModule, 'graphlib' | 'layout'>;
-
-/**
- * Lays the lineage out top to bottom (older numbers above newer ones, kits above their
- * contents) with dagre. Edges whose ends are not in the picture (a truncated graph) are left out.
- * Cycles are fine: dagre turns an edge round while ranking and restores it for drawing.
- */
-export function layoutLineage(dagre: Dagre, graph: LineageGraphResponse): LineageLayout {
-  const g = new dagre.graphlib.Graph({ multigraph: true });
-  g.setGraph({ rankdir: 'TB', nodesep: 28, ranksep: 72, edgesep: 20, marginx: 16, marginy: 16 });
-  g.setDefaultEdgeLabel(() => ({}));
-  const ids = new Set(graph.nodes.map((n) => n.partId));
-  for (const node of graph.nodes) g.setNode(node.partId, nodeSizeOf(node));
-  const kept = graph.edges
-    .map((edge, index) => ({ edge, key: `e${index}`, label: edgeLabel(edge) }))
-    .filter(({ edge }) => ids.has(edge.from) && ids.has(edge.to));
-  for (const { edge, key, label } of kept) {
-    // Label width from its length: the picture's label font is about 7.5 px a character.
-    g.setEdge({ v: edge.from, w: edge.to, name: key }, { width: Math.ceil(label.length * 7.5) + 16, height: labelHeight, labelpos: 'c' });
-  }
-  dagre.layout(g);
-
-  const nodes: PlacedNode[] = graph.nodes.map((node) => {
-    const placed = g.node(node.partId);
-    return { ...node, x: placed.x ?? 0, y: placed.y ?? 0, ...nodeSizeOf(node) };
-  });
-  const edges: PlacedEdge[] = kept.map(({ edge, key, label }) => {
-    const placed = g.edge({ v: edge.from, w: edge.to, name: key });
-    const points = placed.points ?? [];
-    const mid = points[Math.floor(points.length / 2)] ?? { x: 0, y: 0 };
-    return { ...edge, key, label, points, labelX: placed.x ?? mid.x, labelY: placed.y ?? mid.y, labelWidth: placed.width ?? 0 };
-  });
-  const size = g.graph();
-  return { width: Math.ceil(size.width ?? 0), height: Math.ceil(size.height ?? 0), nodes, edges };
-}
+export * from './lineage-layout';
 
 export type LineageLayoutState = { status: 'pending' } | { status: 'ready'; layout: LineageLayout } | { status: 'failed' };
 
+/** The layout library in this thread: where no worker can start (tests, a blocked worker script). */
+function layOutHere(graph: LineageGraphResponse): Promise<LineageLayoutState> {
+  return import('@dagrejs/dagre').then(
+    (mod) => {
+      // The ESM build has a default export; some interop layers hand over the namespace only.
+      const dagre: Dagre = (mod as unknown as { default?: Dagre }).default ?? mod;
+      try {
+        return { status: 'ready', layout: layoutLineage(dagre, graph) };
+      } catch {
+        return { status: 'failed' };
+      }
+    },
+    () => ({ status: 'failed' }),
+  );
+}
+
 /**
- * Loads the layout library on first use (it stays out of the first download) and lays out the
- * graph whenever it changes.
+ * One worker lays out every picture, started on first use: a large lineage takes dagre long
+ * enough to hold up a tablet's screen (docs/decisions/027-part-page-first-load.md, "Later").
  */
+let worker: Worker | null | undefined;
+let nextId = 0;
+const waiting = new Map<number, { graph: LineageGraphResponse; done: (state: LineageLayoutState) => void }>();
+
+function layoutWorker(): Worker | null {
+  if (worker !== undefined) return worker;
+  if (typeof Worker === 'undefined') return (worker = null);
+  try {
+    worker = new Worker(new URL('./lineage-layout.worker.ts', import.meta.url), { type: 'module' });
+  } catch {
+    return (worker = null);
+  }
+  worker.onmessage = (event: MessageEvent<{ id: number; layout: LineageLayout | null }>) => {
+    const request = waiting.get(event.data.id);
+    waiting.delete(event.data.id);
+    request?.done(event.data.layout ? { status: 'ready', layout: event.data.layout } : { status: 'failed' });
+  };
+  // The worker could not start: what it was given is laid out here, and so is everything after.
+  worker.onerror = () => {
+    worker?.terminate();
+    worker = null;
+    const pending = [...waiting.values()];
+    waiting.clear();
+    for (const { graph, done } of pending) void layOutHere(graph).then(done);
+  };
+  return worker;
+}
+
+function layOut(graph: LineageGraphResponse): Promise<LineageLayoutState> {
+  const target = layoutWorker();
+  if (!target) return layOutHere(graph);
+  return new Promise((done) => {
+    const id = ++nextId;
+    waiting.set(id, { graph, done });
+    target.postMessage({ id, graph });
+  });
+}
+
+/** Lays out the graph whenever it changes, off the page's thread where a worker can run. */
 export function useLineageLayout(graph: LineageGraphResponse | undefined): LineageLayoutState {
   const [state, setState] = useState<{ graph: LineageGraphResponse; result: LineageLayoutState } | null>(null);
 
   useEffect(() => {
     if (!graph) return;
     let live = true;
-    import('@dagrejs/dagre').then(
-      (mod) => {
-        if (!live) return;
-        // The ESM build has a default export; some interop layers hand over the namespace only.
-        const dagre: Dagre = (mod as unknown as { default?: Dagre }).default ?? mod;
-        try {
-          setState({ graph, result: { status: 'ready', layout: layoutLineage(dagre, graph) } });
-        } catch {
-          setState({ graph, result: { status: 'failed' } });
-        }
-      },
-      () => {
-        if (live) setState({ graph, result: { status: 'failed' } });
-      },
-    );
+    void layOut(graph).then((result) => {
+      if (live) setState({ graph, result });
+    });
     return () => {
       live = false;
     };
