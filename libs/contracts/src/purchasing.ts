@@ -132,6 +132,7 @@ export const partPurchasingResponseSchema = z.object({
   maxQty: z.number().int().nullable(),
   listings: z.array(listingSchema),
 });
+export type PartPurchasingResponse = z.infer<typeof partPurchasingResponseSchema>;
 
 export const purchasingSettingsSchema = z.object({
   demandWindowDays: z.number().int().min(7, 'Use 7 to 1095 days.').max(1095, 'Use 7 to 1095 days.'),

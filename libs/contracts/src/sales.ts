@@ -1,6 +1,9 @@
 import { z } from 'zod';
 import { emailSchema, idSchema } from './common';
 import { partOrigins } from './constants/catalogue';
+import { sellPriceBases } from './constants/sales';
+
+export * from './constants/sales';
 
 // Sales (issue 12): pricing rules, list prices, tax rates, invoices and credit notes, payments.
 // Money in integer minor units; quantities are decimal text (up to 4 places) so hours and parts
@@ -72,7 +75,7 @@ export type UpdateSalesSettings = z.infer<typeof updateSalesSettingsSchema>;
 export const partSellPriceSchema = z.object({
   partId: z.string(),
   unitMinor: z.number().int().nullable(),
-  basis: z.enum(['list', 'category-markup', 'origin-markup', 'default-markup', 'no-price']),
+  basis: z.enum(sellPriceBases),
   markupPercent: z.number().nullable(),
   listPriceMinor: z.number().int().nullable(),
   /** Only for those who may read margins. */

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { idSchema } from './common';
 import { partOriginSchema } from './part-fields';
-import { stockConditions } from './constants/stock';
+import { holdStatuses, stockConditions, valuationMethods } from './constants/stock';
 
 export * from './constants/stock';
 
@@ -12,10 +12,6 @@ export const stockConditionSchema = z.enum(stockConditions, { error: 'Use new, n
 export const movementKinds = ['received', 'issued', 'returned', 'adjusted', 'moved', 'counted'] as const;
 export const movementKindSchema = z.enum(movementKinds);
 export type MovementKind = z.infer<typeof movementKindSchema>;
-
-/** `average`: moving weighted-average cost; `specific`: serialised items, each at its own cost. */
-export const valuationMethods = ['average', 'specific'] as const;
-export type ValuationMethod = (typeof valuationMethods)[number];
 
 /** Whole units; the largest quantity one movement may carry. */
 export const maxMovementQuantity = 100_000;
@@ -170,8 +166,6 @@ export const holdInputSchema = z
   })
   .strict();
 export type HoldInput = z.input<typeof holdInputSchema>;
-
-export const holdStatuses = ['active', 'released', 'issued'] as const;
 
 export const holdSchema = z.object({
   id: idSchema,

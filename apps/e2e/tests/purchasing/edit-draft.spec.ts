@@ -1,4 +1,4 @@
-import { expect, test } from '@playwright/test';
+import { expect, test, type Response } from '@playwright/test';
 import { createTestShop, userWithRole } from '../../fixtures/shops';
 import { postJson, seedReorderWorld, signInThroughApi } from './purchasing-api';
 
@@ -59,10 +59,23 @@ test('an order written by hand, its draft lines changed, and the part page showi
   expect(order.lines).toHaveLength(1);
   expect(order.totalMinor).toBe(3250);
 
-  // The part page says who it is bought from, and takes a minimum and maximum set by hand.
+  // The part page says who it is bought from, and takes a minimum and maximum set by hand. Its
+  // first load brings no zod: its panels check their answers by hand, and the form's rules load
+  // when the form is sent (docs/decisions/029-part-panels-without-zod.md).
+  const scripts: Array<Promise<{ url: string; code: string }>> = [];
+  const onScript = (r: Response) => {
+    if (new URL(r.url()).pathname.endsWith('.js')) scripts.push(r.text().then((code) => ({ url: r.url(), code })));
+  };
+  page.on('response', onScript);
   await page.goto(`/shops/${shopId}/catalogue/${world.newPartId}`);
   const panel = page.getByRole('region', { name: 'Buying this part' });
   await expect(panel).toContainText('Not bought yet');
+  await expect(page.getByTestId('part-stock-summary')).toHaveText('On hand 0 · held 0 · free 0');
+  await expect(page.getByRole('region', { name: 'Sell price' })).not.toContainText('Loading');
+  page.off('response', onScript);
+  const loaded = await Promise.all(scripts);
+  expect(loaded.length).toBeGreaterThan(5);
+  expect(loaded.filter((s) => s.code.includes('$ZodObject')).map((s) => s.url)).toEqual([]);
   await panel.getByRole('button', { name: 'Change buying choices' }).click();
   await panel.getByLabel('Preferred supplier').selectOption({ label: 'Marrick Spares (£5.00)' });
   await panel.getByLabel('Minimum on hand').fill('8');

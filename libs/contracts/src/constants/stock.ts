@@ -13,3 +13,9 @@ export const stockConditionLabels: Record<StockCondition, string> = {
   reconditioned: 'Reconditioned',
   core: 'Core (for exchange)',
 };
+
+/** `average`: moving weighted-average cost; `specific`: serialised items, each at its own cost. */
+export const valuationMethods = ['average', 'specific'] as const;
+export type ValuationMethod = (typeof valuationMethods)[number];
+
+export const holdStatuses = ['active', 'released', 'issued'] as const;

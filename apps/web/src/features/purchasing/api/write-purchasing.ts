@@ -3,7 +3,6 @@ import {
   listingSchema,
   type Listing,
   ordersFromReorderResponseSchema,
-  partPurchasingResponseSchema,
   purchaseOrderSchema,
   sendOrderResponseSchema,
   supplierReturnSchema,
@@ -13,14 +12,13 @@ import {
   type Supplier,
   type SupplierReturn,
 } from '@tappet/contracts';
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
-import { api, apiRequest } from '../../../lib/api-client';
-import { shopQueryKey } from '../../../lib/query-client';
-import { purchasingApi, purchasingKey } from './keys';
+import { api } from '../../../lib/api-client';
+import { purchasingApi } from './keys';
 
-// The purchasing writes, one function per endpoint. Each success refreshes every purchasing query
-// of the shop; receipts and returns move stock, so they refresh the stock queries too.
+// The purchasing writes, one function per endpoint (a part's buying choices: get-part-purchasing.ts).
+// Run through usePurchasingMutation (purchasing-mutation.ts), each success refreshes every
+// purchasing query of the shop, and the stock queries: receipts and returns move stock.
 
 const order = (shopId: string, orderId: string) => `${purchasingApi(shopId)}/orders/${encodeURIComponent(orderId)}`;
 
@@ -33,8 +31,6 @@ export const updateListing = (shopId: string, input: { listingId: string; body: 
   api.patch<Listing>(`${purchasingApi(shopId)}/listings/${encodeURIComponent(input.listingId)}`, input.body, { schema: listingSchema });
 export const deleteListing = (shopId: string, listingId: string) => api.delete<void>(`${purchasingApi(shopId)}/listings/${encodeURIComponent(listingId)}`);
 export const updateOrder = (shopId: string, input: { orderId: string; body: Record<string, unknown> }) => api.patch<PurchaseOrder>(order(shopId, input.orderId), input.body, { schema: purchaseOrderSchema });
-export const setPartPurchasing = (shopId: string, input: { partId: string; body: { preferredSupplierId: string | null; minQty: number | null; maxQty: number | null } }) =>
-  apiRequest<z.infer<typeof partPurchasingResponseSchema>>(`${purchasingApi(shopId)}/parts/${encodeURIComponent(input.partId)}`, { method: 'PUT', body: input.body, schema: partPurchasingResponseSchema });
 export const requestApproval = (shopId: string, orderId: string) => api.post<PurchaseOrder>(`${order(shopId, orderId)}/request-approval`, undefined, { schema: purchaseOrderSchema });
 export const approveOrder = (shopId: string, orderId: string) => api.post<PurchaseOrder>(`${order(shopId, orderId)}/approve`, undefined, { schema: purchaseOrderSchema });
 export const rejectOrder = (shopId: string, input: { orderId: string; reason: string }) => api.post<PurchaseOrder>(`${order(shopId, input.orderId)}/reject`, { reason: input.reason }, { schema: purchaseOrderSchema });
@@ -51,17 +47,6 @@ export const importListings = (shopId: string, input: { mode: 'preview' | 'commi
   form.set('file', input.file);
   return api.post<ListingImportResult>(`${purchasingApi(shopId)}/listings/import`, form, { schema: listingImportResultSchema });
 };
-
-/** A purchasing mutation that refreshes purchasing (and stock) queries of the shop when it succeeds. */
-export function usePurchasingMutation<I, R>(shopId: string, write: (shopId: string, input: I) => Promise<R>) {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: (input: I) => write(shopId, input),
-    onSuccess: async () => {
-      await Promise.all([queryClient.invalidateQueries({ queryKey: purchasingKey(shopId) }), queryClient.invalidateQueries({ queryKey: shopQueryKey(shopId, 'stock') })]);
-    },
-  });
-}
 
 export const createListing = (shopId: string, input: { supplierId: string; body: Record<string, unknown> }) =>
   api.post<Listing>(`${purchasingApi(shopId)}/suppliers/${encodeURIComponent(input.supplierId)}/listings`, input.body, { schema: listingSchema });

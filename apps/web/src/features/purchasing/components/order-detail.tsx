@@ -7,7 +7,8 @@ import { errorMessage } from '../../../lib/api-client';
 import { useBins } from '../api/get-bins';
 import { useListings } from '../api/get-listings';
 import { orderPdfHref, useOrder } from '../api/get-order';
-import { approveOrder, cancelOrder, closeBackOrder, createReturn, receiveOrder, rejectOrder, requestApproval, sendOrder, usePurchasingMutation } from '../api/write-purchasing';
+import { approveOrder, cancelOrder, closeBackOrder, createReturn, receiveOrder, rejectOrder, requestApproval, sendOrder } from '../api/write-purchasing';
+import { usePurchasingMutation } from '../api/purchasing-mutation';
 import { OrderLinesDialog } from './order-lines-dialog';
 import { money, orderStatusWords } from './words';
 

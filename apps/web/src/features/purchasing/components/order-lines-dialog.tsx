@@ -6,7 +6,8 @@ import { useNavigate } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { errorMessage } from '../../../lib/api-client';
 import { partFor } from '../api/find-part';
-import { createOrder, updateOrder, usePurchasingMutation } from '../api/write-purchasing';
+import { createOrder, updateOrder } from '../api/write-purchasing';
+import { usePurchasingMutation } from '../api/purchasing-mutation';
 
 /** One line being written: what a person typed, and what it was (part, special order) when it came from the order. */
 interface Row {

@@ -1,12 +1,11 @@
-import { partPurchasingSchema } from '@tappet/contracts';
 import { Button, ErrorState, FormMessage, LoadingState, Num, Select, TextField, useToast } from '@tappet/ui';
 import { useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { useCan } from '../../../lib/ability';
 import { errorMessage } from '../../../lib/api-client';
-import { usePartPurchasing } from '../api/get-part-purchasing';
-import { setPartPurchasing, usePurchasingMutation } from '../api/write-purchasing';
+import { setPartPurchasing, usePartPurchasing } from '../api/get-part-purchasing';
+import { usePurchasingMutation } from '../api/purchasing-mutation';
 import { money } from './words';
 
 /** A whole number typed in a field, null when blank, NaN when not a whole number. */
@@ -30,7 +29,7 @@ export function PartPurchasingPanel({ shopId, partId }: { shopId: string; partId
   const preferred = v.listings.find((l) => l.supplierId === v.preferredSupplierId) ?? null;
   const lastPaid = v.listings.filter((l) => l.lastPaidAt !== null).sort((a, b) => (b.lastPaidAt ?? '').localeCompare(a.lastPaidAt ?? ''))[0] ?? null;
 
-  function onSubmit(event: FormEvent<HTMLFormElement>) {
+  async function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const f = new FormData(event.currentTarget);
     const body = { preferredSupplierId: String(f.get('preferredSupplierId') ?? '') || null, minQty: wholeOrNull(String(f.get('minQty') ?? '')), maxQty: wholeOrNull(String(f.get('maxQty') ?? '')) };
@@ -38,8 +37,11 @@ export function PartPurchasingPanel({ shopId, partId }: { shopId: string; partId
     if (Number.isNaN(body.minQty)) next['minQty'] = 'Use a whole number, or leave it blank.';
     if (Number.isNaN(body.maxQty)) next['maxQty'] = 'Use a whole number, or leave it blank.';
     if (Object.keys(next).length === 0) {
-      const parsed = partPurchasingSchema.safeParse(body);
-      if (!parsed.success) for (const issue of parsed.error.issues) next[String(issue.path[0] ?? 'form')] = issue.message;
+      // The form's rules load when it is sent: zod stays off the part page until then (decision 029).
+      const rules = await import('../api/part-purchasing-form-schema').catch(() => null);
+      if (!rules) next['form'] = 'Tappet cannot be reached. Check the connection and try again.';
+      const parsed = rules?.partPurchasingSchema.safeParse(body);
+      if (parsed && !parsed.success) for (const issue of parsed.error.issues) next[String(issue.path[0] ?? 'form')] = issue.message;
     }
     setErrors(next);
     if (Object.keys(next).length > 0) return;
@@ -62,7 +64,13 @@ export function PartPurchasingPanel({ shopId, partId }: { shopId: string; partId
           Buying this part
         </h2>
         {canUpdate && !editing && (
-          <Button variant="secondary" onClick={() => setEditing(true)}>
+          <Button
+            variant="secondary"
+            onClick={() => {
+              void import('../api/part-purchasing-form-schema').catch(() => undefined); // ready by the time the form is sent
+              setEditing(true);
+            }}
+          >
             Change buying choices
           </Button>
         )}
@@ -76,7 +84,7 @@ export function PartPurchasingPanel({ shopId, partId }: { shopId: string; partId
         <dd>{v.minQty === null && v.maxQty === null ? 'Not set: the reorder list works from demand' : `${v.minQty ?? '—'} / ${v.maxQty ?? '—'} (set by hand)`}</dd>
       </dl>
       {editing && (
-        <form noValidate onSubmit={onSubmit} aria-label="Buying choices" className="grid max-w-xl gap-4 sm:grid-cols-2">
+        <form noValidate onSubmit={(e) => void onSubmit(e)} aria-label="Buying choices" className="grid max-w-xl gap-4 sm:grid-cols-2">
           {errors['form'] && (
             <div className="sm:col-span-2">
               <FormMessage>{errors['form']}</FormMessage>

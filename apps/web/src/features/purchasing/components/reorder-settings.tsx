@@ -3,7 +3,7 @@ import { Button, FormMessage, TextField, useToast } from '@tappet/ui';
 import { useState, type FormEvent } from 'react';
 import { errorMessage } from '../../../lib/api-client';
 import { updatePurchasingSettings, usePurchasingSettings } from '../api/purchasing-settings';
-import { usePurchasingMutation } from '../api/write-purchasing';
+import { usePurchasingMutation } from '../api/purchasing-mutation';
 
 /** The owner's two reorder settings kept here (service level and costs are in the shop settings). */
 export function ReorderSettings({ shopId }: { shopId: string }) {

@@ -5,7 +5,8 @@ import { useId, useMemo, useState, type FormEvent } from 'react';
 import { useCan } from '../../../lib/ability';
 import { errorMessage } from '../../../lib/api-client';
 import { useReturns } from '../api/get-returns';
-import { creditReturn, usePurchasingMutation } from '../api/write-purchasing';
+import { creditReturn } from '../api/write-purchasing';
+import { usePurchasingMutation } from '../api/purchasing-mutation';
 import { money } from './words';
 
 const column = createColumnHelper<SupplierReturn>();

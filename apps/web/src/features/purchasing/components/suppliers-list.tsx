@@ -9,7 +9,8 @@ import { useCan } from '../../../lib/ability';
 import { errorMessage } from '../../../lib/api-client';
 import { formValues, useFormErrors } from '../../../lib/forms';
 import { useSuppliers } from '../api/get-suppliers';
-import { createSupplier, importListings, updateSupplier, usePurchasingMutation } from '../api/write-purchasing';
+import { createSupplier, importListings, updateSupplier } from '../api/write-purchasing';
+import { usePurchasingMutation } from '../api/purchasing-mutation';
 import { money } from './words';
 
 const column = createColumnHelper<Supplier>();

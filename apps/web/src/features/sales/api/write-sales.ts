@@ -1,9 +1,7 @@
 import { cardCheckoutResponseSchema, invoiceSchema, salesSettingsSchema, type CardCheckoutResponse, type Invoice, type SalesSettings, type UpdateSalesSettings } from '@tappet/contracts';
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import { api, apiRequest } from '../../../lib/api-client';
-import { shopQueryKey } from '../../../lib/query-client';
-import { salesApi, salesKey } from './keys';
+import { salesApi } from './keys';
 
 // The sales writes, one function per endpoint. Each success refreshes every sales query of the
 // shop; counter sales move stock, so they refresh the stock queries too.
@@ -28,13 +26,3 @@ export const startCardCheckout = (shopId: string, input: { invoiceId: string; am
 export const emailInvoice = (shopId: string, invoiceId: string) => api.post<{ emailed: boolean }>(`${invoice(shopId, invoiceId)}/email`);
 export const counterSale = (shopId: string, input: Record<string, unknown>) => api.post<InvoiceWithEmailed>(`${salesApi(shopId)}/counter-sales`, input, { schema: withEmailed });
 
-/** A sales mutation that refreshes the shop's sales (and stock) queries when it succeeds. */
-export function useSalesMutation<I, R>(shopId: string, write: (shopId: string, input: I) => Promise<R>) {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: (input: I) => write(shopId, input),
-    onSuccess: async () => {
-      await Promise.all([queryClient.invalidateQueries({ queryKey: salesKey(shopId) }), queryClient.invalidateQueries({ queryKey: shopQueryKey(shopId, 'stock') })]);
-    },
-  });
-}

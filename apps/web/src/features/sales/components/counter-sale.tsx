@@ -7,7 +7,8 @@ import { paths } from '../../../config/paths';
 import { errorMessage } from '../../../lib/api-client';
 import { searchParts } from '../api/search-parts';
 import { useSellPrices } from '../api/sell-prices';
-import { counterSale, useSalesMutation } from '../api/write-sales';
+import { counterSale } from '../api/write-sales';
+import { useSalesMutation } from '../api/sales-mutation';
 import { money } from './words';
 
 interface CartLine {

@@ -5,7 +5,8 @@ import { Link, useNavigate } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { ApiError, errorMessage } from '../../../lib/api-client';
 import { invoicePdfHref, useInvoice } from '../api/get-invoice';
-import { creditInvoice, deleteDraft, emailInvoice, issueInvoice, recordPayment, startCardCheckout, updateInvoice, useSalesMutation } from '../api/write-sales';
+import { creditInvoice, deleteDraft, emailInvoice, issueInvoice, recordPayment, startCardCheckout, updateInvoice } from '../api/write-sales';
+import { useSalesMutation } from '../api/sales-mutation';
 import { documentTitle, methodWords, minorFrom, money, paymentWords, percent, sourceWords } from './words';
 
 export interface InvoiceCan {

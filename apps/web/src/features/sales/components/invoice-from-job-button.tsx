@@ -2,7 +2,8 @@ import { Button, useToast } from '@tappet/ui';
 import { useNavigate } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { ApiError, errorMessage } from '../../../lib/api-client';
-import { createInvoiceFromJob, useSalesMutation } from '../api/write-sales';
+import { createInvoiceFromJob } from '../api/write-sales';
+import { useSalesMutation } from '../api/sales-mutation';
 
 /**
  * Drafts an invoice from a job (its issued parts at sell prices and its labour) and opens it; when

@@ -3,7 +3,7 @@ import { useState, type FormEvent } from 'react';
 import { apiRequest, errorMessage } from '../../../lib/api-client';
 import { useSellPrices } from '../api/sell-prices';
 import { salesApi } from '../api/keys';
-import { useSalesMutation } from '../api/write-sales';
+import { useSalesMutation } from '../api/sales-mutation';
 import { minorFrom, money } from './words';
 
 const basisWords = {

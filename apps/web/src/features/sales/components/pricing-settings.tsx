@@ -2,7 +2,8 @@ import { priceRoundingValues, type SalesSettings } from '@tappet/contracts';
 import { Button, FormMessage, Select, TextField, useToast } from '@tappet/ui';
 import { useState, type FormEvent } from 'react';
 import { errorMessage } from '../../../lib/api-client';
-import { updateSalesSettings, useSalesMutation } from '../api/write-sales';
+import { updateSalesSettings } from '../api/write-sales';
+import { useSalesMutation } from '../api/sales-mutation';
 import { percent } from './words';
 
 const roundingWords: Record<(typeof priceRoundingValues)[number], string> = {

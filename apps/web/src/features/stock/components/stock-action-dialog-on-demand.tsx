@@ -1,6 +1,5 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { lazy, Suspense, useEffect } from 'react';
-import { binsQueryOptions } from '../api/get-bins';
 import type { StockActionDialogProps } from './stock-action-dialog';
 
 const StockActionDialog = lazy(() => import('./stock-action-dialog').then((m) => ({ default: m.StockActionDialog })));
@@ -14,9 +13,10 @@ const StockActionDialog = lazy(() => import('./stock-action-dialog').then((m) =>
 export function StockActionDialogOnDemand(props: StockActionDialogProps) {
   const queryClient = useQueryClient();
   const { shopId, action } = props;
-  // The bins list is asked for while the dialog's code loads, not after.
+  // The bins list is asked for while the dialog's code loads, not after. Its module (with the bins
+  // schema, and so zod) is itself loaded here, not with the panel (decision 029).
   useEffect(() => {
-    if (action) void queryClient.prefetchQuery(binsQueryOptions(shopId));
+    if (action) void import('../api/get-bins').then((m) => queryClient.prefetchQuery(m.binsQueryOptions(shopId)), () => undefined);
   }, [action, queryClient, shopId]);
   if (!action) return null;
   return (
