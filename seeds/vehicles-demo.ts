@@ -137,6 +137,8 @@ const vehicles: DemoVehicle[] = [
       ['assessing', 38, null],
       ['in_work', 35, null],
       ['ready', 12, 'Pre-sale inspection done'],
+      // Settled two days ago (seeds/estimates-demo.ts): settling records the sale.
+      ['sold', 2, 'Sold on consignment; settled'],
     ],
     odometer: [
       [12_980, 'mi', 40],
@@ -199,6 +201,29 @@ const vehicles: DemoVehicle[] = [
     ],
     numbersMatching: true,
     documents: ['invoice', 'service'],
+  },
+  {
+    kind: 'customer',
+    marque: 'Velmark',
+    model: 'Kittiwake 175',
+    year: 1963,
+    colour: 'Dove grey',
+    paint: '#8a8f94',
+    frameNumber: 'VK 1-08812',
+    engineNumber: 'VKE 08812',
+    condition: 'sorted_rider',
+    notes: 'Annual service, new chain and sprockets. Waiting for its owner to collect it.',
+    customer: 'halloway',
+    acquisitionCostMinor: null,
+    askingPriceMinor: null,
+    path: [
+      ['arrived', 6, null],
+      ['in_work', 5, null],
+      ['ready', 1, 'Service done; owner told by phone'],
+    ],
+    odometer: [[22_310, 'mi', 6]],
+    numbersMatching: null,
+    documents: ['service'],
   },
 ];
 

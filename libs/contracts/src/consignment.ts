@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { idSchema } from './common';
+import type { VehicleKind, VehicleStatus } from './vehicles';
 
 // Consignment (issue 12): terms agreed when a consigned vehicle comes in, and the settlement with
 // the consignor after its sale. Money in integer minor units.
@@ -97,8 +98,8 @@ export interface ConsignmentSettlement {
 export interface ConsignmentVehicle {
   vehicleId: string;
   vehicle: string;
-  kind: string;
-  status: string;
+  kind: VehicleKind;
+  status: VehicleStatus;
   askingPriceMinor: number | null;
   currency: string;
   consignor: { id: string; name: string; email: string | null } | null;
@@ -111,7 +112,7 @@ export interface ConsignmentVehicle {
 export interface ConsignmentListRow {
   vehicleId: string;
   vehicle: string;
-  status: string;
+  status: VehicleStatus;
   consignorName: string | null;
   hasTerms: boolean;
   settlementReference: string | null;

@@ -144,13 +144,27 @@ test('the owner agrees consignment terms, settles the sale, prints the settlemen
   await terms.getByRole('button', { name: 'Save the terms' }).click();
   await expect(page.getByText(/Commission 12.5% of the sale price/)).toBeVisible();
 
+  // Settling records the sale, so the vehicle must be ready first: the page says so and links to it.
+  await expect(page.getByText('Settling records the vehicle as sold, so it must be ready first: it is “Arrived”.')).toBeVisible();
+  await expect(page.getByRole('form', { name: 'Settle the sale' })).toHaveCount(0);
+  const vehicleId = (await vehicle.json()).id as string;
+  await expect(page.getByRole('link', { name: 'Move it on the vehicle’s page' })).toHaveAttribute('href', `/shops/${shopId}/vehicles/${vehicleId}`);
+  for (const to of ['assessing', 'ready']) {
+    const moved = await page.request.post(`/api/shops/${shopId}/vehicles/${vehicleId}/status`, { headers: writeHeaders, data: { to } });
+    expect(moved.status(), await moved.text()).toBe(200);
+  }
+  await page.reload();
+
   const settle = page.getByRole('form', { name: 'Settle the sale' });
   await settle.getByLabel('Sale price').fill('12345.00');
   await settle.getByRole('button', { name: 'Settle the sale…' }).click();
-  await page.getByRole('alertdialog', { name: 'Settle this sale?' }).getByRole('button', { name: 'Settle', exact: true }).click();
+  const confirm = page.getByRole('alertdialog', { name: 'Settle this sale?' });
+  await expect(confirm).toContainText('The vehicle is recorded as sold on');
+  await confirm.getByRole('button', { name: 'Settle', exact: true }).click();
   // 12 345.00 − 12.5 % (1 543.125 → 1 543.13, half away from zero: decision 015) = 10 801.87, no approved work.
   await expect(page.getByTestId('payout')).toHaveText('£10,801.87');
   await expectNoSeriousViolations(page, 'consignment settlement');
+  expect((await (await page.request.get(`/api/shops/${shopId}/vehicles/${vehicleId}`)).json()).status).toBe('sold');
 
   const pdfHref = await page.getByRole('link', { name: 'Settlement PDF' }).getAttribute('href');
   const pdf = await page.request.get(pdfHref!);

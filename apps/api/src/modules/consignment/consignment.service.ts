@@ -2,11 +2,11 @@ import { randomUUID } from 'node:crypto';
 import { In, type EntityManager } from 'typeorm';
 import type { z } from 'zod';
 import { consignmentSettlement, type ConsignmentCommission } from '@tappet/domain';
-import type { ConsignmentListRow, ConsignmentSettlement, ConsignmentTerms, ConsignmentVehicle, ConsignmentWorkLine, consignmentTermsInputSchema, payoutInputSchema, settlementInputSchema } from '@tappet/contracts';
+import { canMoveVehicle, type ConsignmentListRow, type ConsignmentSettlement, type ConsignmentTerms, type ConsignmentVehicle, type ConsignmentWorkLine, type consignmentTermsInputSchema, type payoutInputSchema, type settlementInputSchema } from '@tappet/contracts';
 import { shopScoped } from '../../db/tenant-repository';
 import type { Database } from '../../db/write-lock';
 import type { Clock } from '../../lib/clock';
-import { HttpError } from '../../lib/http-error';
+import { badRequest, HttpError } from '../../lib/http-error';
 import { recordAudit, type AuditActor } from '../audit/audit.service';
 import { CustomerEntity } from '../customers/customers.entity';
 import { EstimateEntity } from '../estimates/estimates.entity';
@@ -14,6 +14,7 @@ import { jobApprovalState, vehicleLabel } from '../estimates/estimates.service';
 import { JobEntity } from '../jobs/jobs.entity';
 import { shopBasics } from '../sales/sales.settings';
 import { VehicleEntity, type VehicleRow } from '../vehicles/vehicles.entity';
+import { moveVehicleStatus, vehicleStatusWords } from '../vehicles/vehicles.service';
 import { ConsignmentSettlementEntity, ConsignmentTermsEntity, type ConsignmentSettlementRow, type ConsignmentTermsRow } from './consignment.entity';
 import { renderSettlementPdf } from './settlement-pdf';
 
@@ -181,10 +182,18 @@ export function createConsignmentService(deps: { db: Database; clock: Clock }) {
         const terms = await shopScoped(manager, ConsignmentTermsEntity, shopId).findOne({ vehicleId });
         if (!terms) throw conflict('no_terms', 'Record the commission agreed with the consignor first.');
         if (await shopScoped(manager, ConsignmentSettlementEntity, shopId).findOne({ vehicleId })) throw conflict('settled', 'This vehicle already has a settlement.');
+        const at = clock.now();
+        // Settling records the sale: the vehicle is marked sold on the sale date (the end of that
+        // day, or now if that is still to come), through the vehicle's own status rules.
+        if (v.status !== 'sold') {
+          if (!canMoveVehicle(v.kind, v.status, 'sold')) throw conflict('not_ready_to_sell', `Settling records the sale, and a vehicle that is “${vehicleStatusWords[v.status]}” cannot be sold: move it to “${vehicleStatusWords.ready}” first.`);
+          const soldAt = new Date(Math.min(at.getTime(), new Date(`${input.soldOn}T23:59:59.999Z`).getTime()));
+          if (soldAt.getTime() < new Date(v.statusSince).getTime()) throw badRequest(`The sale date is before the vehicle became “${vehicleStatusWords[v.status]}” (${iso(v.statusSince).slice(0, 10)}). Enter the day it was sold.`);
+          await moveVehicleStatus(manager, shopId, vehicleId, { to: 'sold', at: soldAt, note: 'Sold on consignment; settled' }, actor, at);
+        }
         const work = await approvedWork(manager, shopId, v);
         const figures = consignmentSettlement({ salePriceMinor: input.salePriceMinor, commission: commissionOf(terms), work: work.map((w) => ({ label: w.title, amountMinor: w.chargedMinor })) });
         const [first] = (await manager.query(`SELECT MAX(number) AS max FROM consignment_settlements WHERE shop_id = ?`, [shopId])) as Array<{ max: number | null }>;
-        const at = clock.now();
         const row: ConsignmentSettlementRow = {
           id: randomUUID(),
           shopId,

@@ -71,7 +71,8 @@ const clockSkewMs = 5 * 60_000;
 
 const iso = (d: Date | string) => new Date(d).toISOString();
 
-const statusWords: Record<VehicleStatus, string> = {
+/** The statuses in the words the screens use, for messages. */
+export const vehicleStatusWords: Record<VehicleStatus, string> = {
   arrived: 'Arrived',
   assessing: 'Being assessed',
   in_work: 'In work',
@@ -124,6 +125,52 @@ export function odometerIn(reading: { value: number; unit: OdometerUnit }, unit:
 
 /** A date (YYYY-MM-DD) as the instant of noon UTC that day, so it reads as that day in any time zone near UTC. */
 const dateAt = (day: string) => new Date(`${day}T12:00:00Z`);
+
+/**
+ * Moves a vehicle to `move.to` inside the caller's write: the allowed moves, no earlier than its
+ * last move, no hand-over or sale while a safety item holds it back, then a status-change row and
+ * an audit event. The vehicle screen's moves and a consignment settlement (which records the sale)
+ * both come through here.
+ */
+export async function moveVehicleStatus(manager: EntityManager, shopId: string, vehicleId: string, move: { to: VehicleStatus; at: Date; note: string | null }, actor: AuditActor, now: Date): Promise<void> {
+  const { at } = move;
+  const before = await shopScoped(manager, VehicleEntity, shopId).findOne({ id: vehicleId });
+  if (!before) throw noSuchVehicle();
+  if (!canMoveVehicle(before.kind, before.status, move.to)) {
+    const allowed = vehicleStatusMoves[before.status].filter((to) => canMoveVehicle(before.kind, before.status, to));
+    throw new HttpError(
+      409,
+      'conflict',
+      `A vehicle that is “${vehicleStatusWords[before.status]}” cannot move to “${vehicleStatusWords[move.to]}”. ${allowed.length ? `It can move to: ${allowed.map((s) => vehicleStatusWords[s]).join(', ')}.` : 'Its stay has ended.'}`,
+    );
+  }
+  if (at.getTime() < new Date(before.statusSince).getTime()) throw badRequest('The date of the move is earlier than the last move. Enter a later date.');
+  if (move.to === 'ready' || move.to === 'handed_over' || move.to === 'sold') {
+    // A safety item that failed or was never recorded on one of its jobs holds the vehicle back
+    // until it is put right or the owner signs it off (issue 10).
+    const blockers = await vehicleHandOverBlockers(manager, shopId, vehicleId);
+    if (blockers.length > 0) {
+      const first = blockers.slice(0, 3).map((b) => `${b.label} (job ${b.jobNumber}, ${b.reason === 'failed' ? 'failed' : 'not recorded'})`);
+      throw new HttpError(
+        409,
+        'conflict',
+        `This vehicle cannot be “${vehicleStatusWords[move.to]}” yet: ${first.join('; ')}${blockers.length > 3 ? ` and ${blockers.length - 3} more` : ''}. Put the work right on the job, or have the owner sign it off there.`,
+        { reason: 'safety_blockers', blockers },
+      );
+    }
+  }
+  await shopScoped(manager, VehicleStatusChangeEntity, shopId).insert({ id: randomUUID(), vehicleId, fromStatus: before.status, toStatus: move.to, changedAt: at, recordedAt: now, byUserId: actor.userId, note: move.note });
+  await shopScoped(manager, VehicleEntity, shopId).update({ id: vehicleId }, { status: move.to, statusSince: at, updatedAt: now });
+  await recordAudit(manager, {
+    shopId,
+    actor,
+    action: 'vehicle.status_changed',
+    entity: 'vehicle',
+    entityId: vehicleId,
+    changes: { status: { before: before.status, after: move.to }, statusSince: { before: iso(before.statusSince), after: iso(at) }, ...(move.note ? { note: { before: null, after: move.note } } : {}) },
+    at: now,
+  });
+}
 
 /**
  * Vehicles: records, identification checks, status moves, odometer readings, numbers-matching
@@ -380,43 +427,7 @@ export function createVehiclesService(deps: { db: Database; clock: Clock; files:
       const now = clock.now();
       const at = move.at ? new Date(move.at) : now;
       notInFuture(at, 'The date of the move');
-      await db.write(async (manager) => {
-        const before = await vehicleRow(manager, shopId, vehicleId);
-        if (!canMoveVehicle(before.kind, before.status, move.to)) {
-          const allowed = vehicleStatusMoves[before.status].filter((to) => canMoveVehicle(before.kind, before.status, to));
-          throw new HttpError(
-            409,
-            'conflict',
-            `A vehicle that is “${statusWords[before.status]}” cannot move to “${statusWords[move.to]}”. ${allowed.length ? `It can move to: ${allowed.map((s) => statusWords[s]).join(', ')}.` : 'Its stay has ended.'}`,
-          );
-        }
-        if (at.getTime() < new Date(before.statusSince).getTime()) throw badRequest('The date of the move is earlier than the last move. Enter a later date.');
-        if (move.to === 'ready' || move.to === 'handed_over' || move.to === 'sold') {
-          // A safety item that failed or was never recorded on one of its jobs holds the vehicle back
-          // until it is put right or the owner signs it off (issue 10).
-          const blockers = await vehicleHandOverBlockers(manager, shopId, vehicleId);
-          if (blockers.length > 0) {
-            const first = blockers.slice(0, 3).map((b) => `${b.label} (job ${b.jobNumber}, ${b.reason === 'failed' ? 'failed' : 'not recorded'})`);
-            throw new HttpError(
-              409,
-              'conflict',
-              `This vehicle cannot be “${statusWords[move.to]}” yet: ${first.join('; ')}${blockers.length > 3 ? ` and ${blockers.length - 3} more` : ''}. Put the work right on the job, or have the owner sign it off there.`,
-              { reason: 'safety_blockers', blockers },
-            );
-          }
-        }
-        await shopScoped(manager, VehicleStatusChangeEntity, shopId).insert({ id: randomUUID(), vehicleId, fromStatus: before.status, toStatus: move.to, changedAt: at, recordedAt: now, byUserId: actor.userId, note: move.note });
-        await shopScoped(manager, VehicleEntity, shopId).update({ id: vehicleId }, { status: move.to, statusSince: at, updatedAt: now });
-        await recordAudit(manager, {
-          shopId,
-          actor,
-          action: 'vehicle.status_changed',
-          entity: 'vehicle',
-          entityId: vehicleId,
-          changes: { status: { before: before.status, after: move.to }, statusSince: { before: iso(before.statusSince), after: iso(at) }, ...(move.note ? { note: { before: null, after: move.note } } : {}) },
-          at: now,
-        });
-      });
+      await db.write((manager) => moveVehicleStatus(manager, shopId, vehicleId, { to: move.to, at, note: move.note }, actor, now));
       return detail(shopId, vehicleId);
     },
 
@@ -458,7 +469,7 @@ export function createVehiclesService(deps: { db: Database; clock: Clock; files:
       const full = await detail(shopId, vehicleId);
       const entries: TimelineEntry[] = [];
       for (const c of full.statusHistory) {
-        entries.push({ kind: 'status', at: c.at, title: c.from === null ? `Arrived` : `${statusWords[c.from]} → ${statusWords[c.to]}`, detail: c.note, by: c.by, refId: c.id });
+        entries.push({ kind: 'status', at: c.at, title: c.from === null ? `Arrived` : `${vehicleStatusWords[c.from]} → ${vehicleStatusWords[c.to]}`, detail: c.note, by: c.by, refId: c.id });
       }
       for (const r of full.odometerReadings) {
         // A reading dated today sits at the time it was recorded, not at noon ahead of later events.

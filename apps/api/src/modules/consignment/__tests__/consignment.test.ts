@@ -106,6 +106,18 @@ describe('consignment settlement', () => {
     ]);
 
     expect((await viewer.post(url(`/vehicles/${vehicleId}/settlement`)).set(csrf).send({ salePriceMinor: 1_234_500, soldOn: '2026-01-20' })).status).toBe(403);
+    // Settling records the sale, so the vehicle must be one that can be sold: not while it has only arrived.
+    const tooSoon = await owner.post(url(`/vehicles/${vehicleId}/settlement`)).set(csrf).send({ salePriceMinor: 1_234_500, soldOn: '2026-01-20' });
+    expect(tooSoon.status).toBe(409);
+    expect(tooSoon.body.error).toMatchObject({ details: { reason: 'not_ready_to_sell' } });
+    expect(tooSoon.body.error.message).toContain('move it to “Ready” first');
+    expect((await owner.get(url(`/vehicles/${vehicleId}`))).body).toMatchObject({ status: 'arrived', settlement: null });
+    for (const to of ['assessing', 'ready']) expect((await owner.post(`/api/shops/${shopId}/vehicles/${vehicleId}/status`).set(csrf).send({ to })).status).toBe(200);
+    // A sale dated before the vehicle was ready (the fake clock stands at 15 January) is refused.
+    const backdated = await owner.post(url(`/vehicles/${vehicleId}/settlement`)).set(csrf).send({ salePriceMinor: 1_234_500, soldOn: '2026-01-14' });
+    expect(backdated.status).toBe(400);
+    expect(backdated.body.error.message).toBe('The sale date is before the vehicle became “Ready” (2026-01-15). Enter the day it was sold.');
+
     const settled = await owner.post(url(`/vehicles/${vehicleId}/settlement`)).set(csrf).send({ salePriceMinor: 1_234_500, soldOn: '2026-01-20', note: 'Sold to a private buyer' });
     expect(settled.status, JSON.stringify(settled.body)).toBe(201);
     // By hand: sale 1 234 500; commission 12.5 % = 154 312.5 → 154 313 (tie, away from zero: decision 015);
@@ -114,6 +126,12 @@ describe('consignment settlement', () => {
     expect(settled.body.settlement.reference).toMatch(/^CS-\d{6}$/);
     const audit = await ctx.db.reader.findOneByOrFail(AuditEventEntity, { entityId: settled.body.settlement.id, action: 'consignment.settled' });
     expect(audit.changes).toMatchObject({ payoutMinor: { after: 1_020_731 } });
+    // …and the vehicle is sold, through its own status rules: a dated move with its audit event.
+    expect(settled.body.status).toBe('sold');
+    const sold = await owner.get(`/api/shops/${shopId}/vehicles/${vehicleId}`);
+    expect(sold.body.status).toBe('sold');
+    const moves = await ctx.db.reader.findBy(AuditEventEntity, { entityId: vehicleId, action: 'vehicle.status_changed' });
+    expect(moves.map((m) => m.changes?.['status']?.after).sort()).toEqual(['assessing', 'ready', 'sold']);
 
     expect((await owner.post(url(`/vehicles/${vehicleId}/settlement`)).set(csrf).send({ salePriceMinor: 1, soldOn: '2026-01-20' })).status).toBe(409);
     expect((await owner.put(url(`/vehicles/${vehicleId}/terms`)).set(csrf).send({ commissionKind: 'fixed', commissionFixedMinor: 1, agreedOn: '2026-01-10' })).status).toBe(409);

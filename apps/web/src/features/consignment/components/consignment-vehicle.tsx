@@ -1,10 +1,13 @@
 import { useState, type FormEvent } from 'react';
+import { Link } from 'react-router-dom';
 import { consignmentTermsInputSchema, payoutInputSchema, settlementInputSchema, type ConsignmentVehicle } from '@tappet/contracts';
 import { parseMinorUnits } from '@tappet/domain';
 import { Button, ConfirmDialog, ErrorState, LoadingState, Select, TextField, buttonClasses, useToast } from '@tappet/ui';
+import { paths } from '../../../config/paths';
 import { useCan } from '../../../lib/ability';
 import { errorMessage } from '../../../lib/api-client';
 import { useFormatMoney } from '../../../lib/shop-settings';
+import { statusWords } from '../../vehicles/components/words';
 import { recordPayout, saveTerms, settle, settlementPdfHref, useConsignmentMutation, useConsignmentVehicle } from '../api/consignment';
 
 const today = () => new Date().toISOString().slice(0, 10);
@@ -165,6 +168,14 @@ function SettleForm({ shopId, d, canWrite }: { shopId: string; d: ConsignmentVeh
       )}
       {!d.terms ? (
         <p className="text-ink-muted">Record the terms first; then the sale can be settled.</p>
+      ) : d.status !== 'ready' && d.status !== 'sold' ? (
+        <p className="text-ink-muted">
+          Settling records the vehicle as sold, so it must be ready first: it is “{statusWords[d.status]}”.{' '}
+          <Link to={paths.shop.vehicle.getHref(shopId, d.vehicleId)} className="text-accent underline underline-offset-4">
+            Move it on the vehicle’s page
+          </Link>
+          .
+        </p>
       ) : canWrite ? (
         <form className="grid max-w-xl gap-3" onSubmit={submit} noValidate aria-label="Settle the sale">
           <TextField label="Sale price" inputMode="decimal" value={price} onChange={(e) => setPrice(e.target.value)} error={errors['salePriceMinor']} />
@@ -184,7 +195,7 @@ function SettleForm({ shopId, d, canWrite }: { shopId: string; d: ConsignmentVeh
         <ConfirmDialog
           open
           title="Settle this sale?"
-          message={`Sale price ${money(confirming.salePriceMinor)}. The commission, the approved work and the payout are worked out now and cannot change afterwards.`}
+          message={`Sale price ${money(confirming.salePriceMinor)}. The commission, the approved work and the payout are worked out now and cannot change afterwards.${d.status === 'sold' ? '' : ` The vehicle is recorded as sold on ${confirming.soldOn}.`}`}
           confirmLabel="Settle"
           loading={make.isPending}
           onCancel={() => setConfirming(null)}
