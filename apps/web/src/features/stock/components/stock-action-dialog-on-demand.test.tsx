@@ -59,7 +59,13 @@ describe('the stock action dialog, loaded when it opens', () => {
     expect(requests.filter((r) => r.path === `/shops/${shopA}/stock/bins`)).toHaveLength(1);
     const bin = within(dialog).getByLabelText('Bin');
     expect(bin).toHaveDisplayValue('Loading bins…');
+    // A keyboard user already on the select keeps their place when the list arrives (after the
+    // dialog has put focus inside itself, as it does on opening).
+    await vi.waitFor(() => expect(dialog.contains(document.activeElement)).toBe(true));
+    bin.focus();
     release();
     await vi.waitFor(() => expect(within(dialog).getByLabelText('Bin')).toHaveDisplayValue('B-04 — Aisle B, shelf 4'));
+    expect(within(dialog).getByLabelText('Bin')).toBe(bin);
+    expect(bin).toHaveFocus();
   });
 });

@@ -9,8 +9,8 @@ import {
   type StockCondition,
 } from '@tappet/contracts';
 import { minorUnitExponent, MoneyFormatError, parseMinorUnits } from '@tappet/domain';
-import { Dialog, FormDialogFooter, FormMessage, PartNumber, Select, TextField, useToast } from '@tappet/ui';
-import { useId, useRef, type FormEvent, type ReactNode } from 'react';
+import { Dialog, FormDialogFooter, FormMessage, PartNumber, Select, TextField, useToast, type SelectOption } from '@tappet/ui';
+import { useId, useLayoutEffect, useRef, type FormEvent, type ReactNode } from 'react';
 import type { z } from 'zod';
 import { ApiError } from '../../../lib/api-client';
 import { formValues, useFormErrors, zodFieldErrors, type FieldErrors } from '../../../lib/forms';
@@ -162,8 +162,7 @@ export function StockActionDialog({ shopId, action, onClose, currency, preset = 
   const f = errors.fieldErrors;
   const field = (node: ReactNode) => node;
   const binSelect = (name: string, label: string, defaultValue?: string) => (
-    // Keyed on the list having arrived: a preset bin chosen before its option exists would be lost.
-    <Select key={bins.isSuccess ? 'bins' : 'no-bins'} label={label} name={name} options={binOptions} placeholder={bins.isPending ? 'Loading bins…' : 'Choose a bin'} defaultValue={defaultValue ?? ''} error={f[name]} />
+    <BinSelect label={label} name={name} options={binOptions} loading={bins.isPending} arrived={bins.isSuccess} preset={defaultValue ?? ''} error={f[name]} />
   );
   const cost = (hint: string) => <TextField label={`Unit cost (${currency})`} name="unitCostMinor" inputMode="decimal" hint={hint} error={f.unitCostMinor} className="font-mono" autoComplete="off" />;
 
@@ -219,4 +218,17 @@ export function StockActionDialog({ shopId, action, onClose, currency, preset = 
       </form>
     </Dialog>
   );
+}
+
+/**
+ * A bin choice whose options may arrive after the dialog opens. The bin it was opened for is
+ * chosen when they do, on the same select: re-mounting it would take a keyboard user's focus away.
+ */
+function BinSelect({ label, name, options, loading, arrived, preset, error }: { label: string; name: string; options: SelectOption[]; loading: boolean; arrived: boolean; preset: string; error?: string }) {
+  const ref = useRef<HTMLSelectElement>(null);
+  useLayoutEffect(() => {
+    // A select cannot take a value before its option exists; the person may have chosen since.
+    if (arrived && ref.current && ref.current.value === '' && preset) ref.current.value = preset;
+  }, [arrived, preset]);
+  return <Select ref={ref} label={label} name={name} options={options} placeholder={loading ? 'Loading bins…' : 'Choose a bin'} defaultValue={preset} error={error} />;
 }
