@@ -50,6 +50,13 @@ test('receive into a bin, find it through a superseded number, hold it, issue it
   await expect(replacement).toContainText('3 free in B-04 (new)');
   await replacement.click();
   await expect(page).toHaveURL(new RegExp(`/catalogue/${current.id}$`));
+  // Under the number, a line with the stock and the sell price, and a way down to the stock panel.
+  const glance = page.getByTestId('part-glance');
+  await expect(glance).toContainText('Stock: 3 free in B-04');
+  await expect(glance).toContainText(/Sell price: (£[\d,.]+ before tax|none set)/);
+  await glance.getByRole('link', { name: 'Stock and actions' }).click();
+  await expect(page).toHaveURL(/#part-stock-heading$/);
+  await expect(page.getByRole('heading', { level: 2, name: 'Stock' })).toBeInViewport();
 
   // Hold two for a job, then issue them from the hold. The part's stock answer carries its holds:
   // the page asks for no list of the shop's holds, nor for the whole valuation.

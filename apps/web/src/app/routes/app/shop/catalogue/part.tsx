@@ -11,6 +11,7 @@ import { useCan } from '../../../../../lib/ability';
 import { ApiError, errorMessage } from '../../../../../lib/api-client';
 import { useAfterPaint } from '../../../../../lib/use-after-paint';
 import { useDocumentTitle } from '../../../../../lib/use-document-title';
+import { PartGlance } from './part-glance';
 
 // The panels below the part (stock, purchasing, price) fetch their own data and carry their own
 // forms: loaded once the part has been painted rather than before it can show
@@ -64,6 +65,7 @@ export default function PartRoute() {
           </h1>
           <PrintLabelsButton shopId={shopId} source={{ kind: 'parts', parts: [{ id: p.id, number: p.number }] }} label="Print label" />
         </div>
+        <PartGlance shopId={shopId} partId={p.id} painted={painted} canReadStock={canReadStock} />
       </div>
       <PartView
         shopId={shopId}
