@@ -1,4 +1,4 @@
-import { Button, ErrorState, FormMessage, LoadingState, Num, Select, TextField, useToast } from '@tappet/ui';
+import { Button, ErrorState, FormMessage, LoadingState, Num, Panel, Select, TextField, useToast } from '@tappet/ui';
 import { useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
@@ -58,12 +58,13 @@ export function PartPurchasingPanel({ shopId, partId }: { shopId: string; partId
   }
 
   return (
-    <section aria-labelledby="part-purchasing-heading" className="mt-8 flex flex-col gap-4">
-      <div className="flex flex-wrap items-end justify-between gap-3">
-        <h2 id="part-purchasing-heading" className="text-lg font-bold">
-          Buying this part
-        </h2>
-        {canUpdate && !editing && (
+    <Panel
+      title="Buying this part"
+      id="part-purchasing-heading"
+      className="mt-6"
+      actions={
+        canUpdate &&
+        !editing && (
           <Button
             variant="secondary"
             onClick={() => {
@@ -73,8 +74,9 @@ export function PartPurchasingPanel({ shopId, partId }: { shopId: string; partId
           >
             Change buying choices
           </Button>
-        )}
-      </div>
+        )
+      }
+    >
       <dl className="grid gap-x-6 gap-y-1 sm:grid-cols-[max-content_1fr]">
         <dt className="font-bold">Preferred supplier</dt>
         <dd>{preferred ? preferred.supplierName : v.listings.length > 0 ? 'None chosen: the cheapest listing is used' : 'No supplier lists it yet'}</dd>
@@ -117,36 +119,38 @@ export function PartPurchasingPanel({ shopId, partId }: { shopId: string; partId
         </form>
       )}
       {v.listings.length > 0 && (
-        <table className="w-full">
-          <caption className="sr-only">Suppliers listing this part</caption>
-          <thead>
-            <tr className="border-b-2 border-line text-left">
-              <th scope="col" className="py-2">Supplier</th>
-              <th scope="col" className="py-2">Their number</th>
-              <th scope="col" className="py-2 text-right">Price</th>
-              <th scope="col" className="py-2 text-right">Pack</th>
-            </tr>
-          </thead>
-          <tbody>
-            {v.listings.map((l) => (
-              <tr key={l.id} className="border-b border-line">
-                <td className="py-2">
-                  <Link to={paths.shop.purchasingSupplier.getHref(shopId, l.supplierId)} className="text-accent underline underline-offset-4">
-                    {l.supplierName}
-                  </Link>
-                </td>
-                <td className="py-2 font-mono">{l.supplierNumber ?? '—'}</td>
-                <td className="py-2 text-right">
-                  <Num>{money(l.priceMinor, l.currency)}</Num>
-                </td>
-                <td className="py-2 text-right">
-                  <Num>{l.packSize}</Num>
-                </td>
+        <div className="-mx-1 overflow-x-auto px-1">
+          <table className="w-full">
+            <caption className="sr-only">Suppliers listing this part</caption>
+            <thead>
+              <tr className="border-b-2 border-line text-left">
+                <th scope="col" className="py-2">Supplier</th>
+                <th scope="col" className="py-2">Their number</th>
+                <th scope="col" className="py-2 text-right">Price</th>
+                <th scope="col" className="py-2 text-right">Pack</th>
               </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody>
+              {v.listings.map((l) => (
+                <tr key={l.id} className="border-b border-line">
+                  <td className="py-2">
+                    <Link to={paths.shop.purchasingSupplier.getHref(shopId, l.supplierId)} className="text-accent underline underline-offset-4">
+                      {l.supplierName}
+                    </Link>
+                  </td>
+                  <td className="py-2 font-mono">{l.supplierNumber ?? '—'}</td>
+                  <td className="py-2 text-right">
+                    <Num>{money(l.priceMinor, l.currency)}</Num>
+                  </td>
+                  <td className="py-2 text-right">
+                    <Num>{l.packSize}</Num>
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
       )}
-    </section>
+    </Panel>
   );
 }

@@ -1,4 +1,4 @@
-import { Button, FormMessage, Num, TextField, useToast } from '@tappet/ui';
+import { Button, FormMessage, Num, Panel, TextField, useToast } from '@tappet/ui';
 import { useState, type FormEvent } from 'react';
 import { apiRequest, errorMessage } from '../../../lib/api-client';
 import { useSellPrices } from '../api/sell-prices';
@@ -35,10 +35,7 @@ export function PartPricePanel({ shopId, partId, canSetListPrice }: { shopId: st
     save.mutate({ partId, listPriceMinor: minor }, { onSuccess: () => toast.show(minor === null ? 'List price removed.' : 'List price saved.', 'ok') });
   };
   return (
-    <section aria-labelledby="part-price-heading" className="mt-8 flex flex-col gap-4">
-      <h2 id="part-price-heading" className="text-lg font-bold">
-        Sell price
-      </h2>
+    <Panel title="Sell price" id="part-price-heading" className="mt-6">
       {prices.isPending ? (
         <p>Loading the price…</p>
       ) : prices.isError ? (
@@ -79,6 +76,6 @@ export function PartPricePanel({ shopId, partId, canSetListPrice }: { shopId: st
           </Button>
         </form>
       )}
-    </section>
+    </Panel>
   );
 }

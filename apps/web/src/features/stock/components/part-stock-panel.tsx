@@ -1,5 +1,5 @@
 import type { StockSummary } from '@tappet/contracts';
-import { Button, ErrorState, LoadingState, Num, PartNumber } from '@tappet/ui';
+import { Button, ErrorState, LoadingState, Num, Panel, PartNumber } from '@tappet/ui';
 import { lazy, Suspense, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
@@ -43,72 +43,74 @@ export function PartStockPanel({ shopId, partId }: { shopId: string; partId: str
   );
 
   return (
-    <section aria-labelledby="part-stock-heading" className="mt-8 flex flex-col gap-4">
-      <div className="flex flex-wrap items-end justify-between gap-3">
-        <div>
-          <h2 id="part-stock-heading" className="text-lg font-bold">
-            Stock
-          </h2>
-          <p data-testid="part-stock-summary">
-            On hand <Num className="font-bold">{s.stock.onHand}</Num> · held <Num className="font-bold">{s.stock.held}</Num> · free <Num className="font-bold">{s.stock.free}</Num>
-          </p>
-        </div>
-        <div className="flex flex-wrap gap-2">
+    <Panel
+      title="Stock"
+      id="part-stock-heading"
+      className="mt-6"
+      actions={
+        <>
           {can.receive && <Button onClick={() => setDialog({ action: 'receive', preset: base })}>Receive</Button>}
           <Link to={paths.shop.stockMovements.getHref(shopId, `partId=${s.partId}`)} className="flex min-h-touch items-center text-accent underline underline-offset-4">
             Movements of {s.number}
           </Link>
-        </div>
-      </div>
+        </>
+      }
+    >
+      <p data-testid="part-stock-summary">
+        On hand <Num className="font-bold">{s.stock.onHand}</Num> · held <Num className="font-bold">{s.stock.held}</Num> · free <Num className="font-bold">{s.stock.free}</Num>
+      </p>
 
       {s.stock.lines.length === 0 ? (
         <p className="text-ink-muted">None of this number on hand.</p>
       ) : (
-        <table className="w-full">
-          <caption className="sr-only">Stock of {s.number} per bin and condition</caption>
-          <thead>
-            <tr className="border-b-2 border-line text-left">
-              <th scope="col" className="py-2">Bin</th>
-              <th scope="col" className="py-2">Condition</th>
-              <th scope="col" className="py-2 text-right">On hand</th>
-              <th scope="col" className="py-2 text-right">Held</th>
-              <th scope="col" className="py-2 text-right">Free</th>
-              <th scope="col" className="py-2 pl-4">Actions</th>
-            </tr>
-          </thead>
-          <tbody>
-            {s.stock.lines.map((l) => {
-              const preset = { ...base, binId: l.binId, condition: l.condition };
-              const where = `from ${l.binCode}, ${conditionLabel(l.condition).toLowerCase()}`;
-              return (
-                <tr key={`${l.binId}|${l.condition}`} className="border-b border-line">
-                  <td className="py-2">
-                    <PartNumber>{l.binCode}</PartNumber>
-                  </td>
-                  <td className="py-2">{conditionLabel(l.condition)}</td>
-                  <td className="py-2 text-right">
-                    <Num>{l.onHand}</Num>
-                  </td>
-                  <td className="py-2 text-right">
-                    <Num>{l.held}</Num>
-                  </td>
-                  <td className="py-2 text-right">
-                    <Num className="font-bold">{l.free}</Num>
-                  </td>
-                  <td className="py-2 pl-4">
-                    <div className="flex flex-wrap gap-1">
-                      {can.hold && l.free > 0 && act('hold', 'Hold', preset, where)}
-                      {can.issue && l.free > 0 && act('issue', 'Issue', preset, where)}
-                      {can.move && l.free > 0 && act('move', 'Move', preset, where)}
-                      {can.adjust && act('adjust', 'Adjust', preset, where)}
-                      {can.count && act('count', 'Count', preset, where)}
-                    </div>
-                  </td>
-                </tr>
-              );
-            })}
-          </tbody>
-        </table>
+        // A narrow frame scrolls the table sideways rather than squeezing its action buttons.
+        <div className="-mx-1 overflow-x-auto px-1">
+          <table className="w-full">
+            <caption className="sr-only">Stock of {s.number} per bin and condition</caption>
+            <thead>
+              <tr className="border-b-2 border-line text-left">
+                <th scope="col" className="px-2 py-2">Bin</th>
+                <th scope="col" className="px-2 py-2">Condition</th>
+                <th scope="col" className="px-2 py-2 text-right whitespace-nowrap">On hand</th>
+                <th scope="col" className="px-2 py-2 text-right whitespace-nowrap">Held</th>
+                <th scope="col" className="px-2 py-2 text-right whitespace-nowrap">Free</th>
+                <th scope="col" className="px-2 py-2">Actions</th>
+              </tr>
+            </thead>
+            <tbody>
+              {s.stock.lines.map((l) => {
+                const preset = { ...base, binId: l.binId, condition: l.condition };
+                const where = `from ${l.binCode}, ${conditionLabel(l.condition).toLowerCase()}`;
+                return (
+                  <tr key={`${l.binId}|${l.condition}`} className="border-b border-line">
+                    <td className="px-2 py-2">
+                      <PartNumber>{l.binCode}</PartNumber>
+                    </td>
+                    <td className="px-2 py-2">{conditionLabel(l.condition)}</td>
+                    <td className="px-2 py-2 text-right">
+                      <Num>{l.onHand}</Num>
+                    </td>
+                    <td className="px-2 py-2 text-right">
+                      <Num>{l.held}</Num>
+                    </td>
+                    <td className="px-2 py-2 text-right">
+                      <Num className="font-bold">{l.free}</Num>
+                    </td>
+                    <td className="px-2 py-2">
+                      <div className="flex flex-wrap gap-1">
+                        {can.hold && l.free > 0 && act('hold', 'Hold', preset, where)}
+                        {can.issue && l.free > 0 && act('issue', 'Issue', preset, where)}
+                        {can.move && l.free > 0 && act('move', 'Move', preset, where)}
+                        {can.adjust && act('adjust', 'Adjust', preset, where)}
+                        {can.count && act('count', 'Count', preset, where)}
+                      </div>
+                    </td>
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        </div>
       )}
 
       {s.fillOptions.length > 0 && (
@@ -150,21 +152,21 @@ export function PartStockPanel({ shopId, partId }: { shopId: string; partId: str
           <caption className="mb-2 text-left font-bold">Items tracked by number</caption>
           <thead>
             <tr className="border-b-2 border-line text-left">
-              <th scope="col" className="py-2">Number</th>
-              <th scope="col" className="py-2">Where</th>
-              <th scope="col" className="py-2">Condition</th>
-              <th scope="col" className="py-2 text-right">Cost</th>
+              <th scope="col" className="px-2 py-2">Number</th>
+              <th scope="col" className="px-2 py-2">Where</th>
+              <th scope="col" className="px-2 py-2">Condition</th>
+              <th scope="col" className="px-2 py-2 text-right whitespace-nowrap">Cost</th>
             </tr>
           </thead>
           <tbody>
             {s.serials.map((item) => (
               <tr key={item.id} className="border-b border-line">
-                <td className="py-2">
+                <td className="px-2 py-2">
                   <PartNumber>{item.serial}</PartNumber>
                 </td>
-                <td className="py-2">{item.inStock ? <PartNumber>{item.binCode ?? ''}</PartNumber> : 'Issued'}</td>
-                <td className="py-2">{conditionLabel(item.condition)}</td>
-                <td className="py-2 text-right">
+                <td className="px-2 py-2">{item.inStock ? <PartNumber>{item.binCode ?? ''}</PartNumber> : 'Issued'}</td>
+                <td className="px-2 py-2">{conditionLabel(item.condition)}</td>
+                <td className="px-2 py-2 text-right">
                   <Num>{money(item.costMinor, s.currency)}</Num>
                 </td>
               </tr>
@@ -193,6 +195,6 @@ export function PartStockPanel({ shopId, partId }: { shopId: string; partId: str
       )}
 
       <StockActionDialogOnDemand shopId={shopId} action={dialog?.action ?? null} preset={dialog?.preset} currency={s.currency} onClose={() => setDialog(null)} />
-    </section>
+    </Panel>
   );
 }
