@@ -1,6 +1,9 @@
 import { z } from 'zod';
 import { idSchema } from './common';
+import { vehicleStatuses, type VehicleStatus } from './constants/vehicles';
 import { distanceUnits } from './settings';
+
+export * from './constants/vehicles';
 
 // Vehicles: records, identification, odometer readings, status through the shop, documents and
 // photos, and parts that fit (issue 9).
@@ -9,10 +12,7 @@ export const vehicleKinds = ['customer', 'shop_stock', 'consignment'] as const;
 export const vehicleKindSchema = z.enum(vehicleKinds, { error: 'Use customer, shop_stock or consignment.' });
 export type VehicleKind = z.infer<typeof vehicleKindSchema>;
 
-/** Where a vehicle stands in the shop. `handed_over` ends a customer's visit; `sold` ends shop stock. */
-export const vehicleStatuses = ['arrived', 'assessing', 'in_work', 'ready', 'handed_over', 'sold'] as const;
 export const vehicleStatusSchema = z.enum(vehicleStatuses, { error: 'Use arrived, assessing, in_work, ready, handed_over or sold.' });
-export type VehicleStatus = z.infer<typeof vehicleStatusSchema>;
 
 /**
  * Moves a vehicle may make from each status. Work can go back a step (a ready machine that fails

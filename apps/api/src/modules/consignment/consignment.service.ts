@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { In, type EntityManager } from 'typeorm';
 import type { z } from 'zod';
 import { consignmentSettlement, type ConsignmentCommission } from '@tappet/domain';
-import { canMoveVehicle, type ConsignmentListRow, type ConsignmentSettlement, type ConsignmentTerms, type ConsignmentVehicle, type ConsignmentWorkLine, type consignmentTermsInputSchema, type payoutInputSchema, type settlementInputSchema } from '@tappet/contracts';
+import { canMoveVehicle, vehicleStatusLabels, type ConsignmentListRow, type ConsignmentSettlement, type ConsignmentTerms, type ConsignmentVehicle, type ConsignmentWorkLine, type consignmentTermsInputSchema, type payoutInputSchema, type settlementInputSchema } from '@tappet/contracts';
 import { shopScoped } from '../../db/tenant-repository';
 import type { Database } from '../../db/write-lock';
 import type { Clock } from '../../lib/clock';
@@ -14,7 +14,7 @@ import { jobApprovalState, vehicleLabel } from '../estimates/estimates.service';
 import { JobEntity } from '../jobs/jobs.entity';
 import { shopBasics } from '../sales/sales.settings';
 import { VehicleEntity, type VehicleRow } from '../vehicles/vehicles.entity';
-import { moveVehicleStatus, vehicleStatusWords } from '../vehicles/vehicles.service';
+import { moveVehicleStatus } from '../vehicles/vehicles.service';
 import { ConsignmentSettlementEntity, ConsignmentTermsEntity, type ConsignmentSettlementRow, type ConsignmentTermsRow } from './consignment.entity';
 import { renderSettlementPdf } from './settlement-pdf';
 
@@ -186,9 +186,9 @@ export function createConsignmentService(deps: { db: Database; clock: Clock }) {
         // Settling records the sale: the vehicle is marked sold on the sale date (the end of that
         // day, or now if that is still to come), through the vehicle's own status rules.
         if (v.status !== 'sold') {
-          if (!canMoveVehicle(v.kind, v.status, 'sold')) throw conflict('not_ready_to_sell', `Settling records the sale, and a vehicle that is “${vehicleStatusWords[v.status]}” cannot be sold: move it to “${vehicleStatusWords.ready}” first.`);
+          if (!canMoveVehicle(v.kind, v.status, 'sold')) throw conflict('not_ready_to_sell', `Settling records the sale, and a vehicle that is “${vehicleStatusLabels[v.status]}” cannot be sold: move it to “${vehicleStatusLabels.ready}” first.`);
           const soldAt = new Date(Math.min(at.getTime(), new Date(`${input.soldOn}T23:59:59.999Z`).getTime()));
-          if (soldAt.getTime() < new Date(v.statusSince).getTime()) throw badRequest(`The sale date is before the vehicle became “${vehicleStatusWords[v.status]}” (${iso(v.statusSince).slice(0, 10)}). Enter the day it was sold.`);
+          if (soldAt.getTime() < new Date(v.statusSince).getTime()) throw badRequest(`The sale date is before the vehicle became “${vehicleStatusLabels[v.status]}” (${iso(v.statusSince).slice(0, 10)}). Enter the day it was sold.`);
           await moveVehicleStatus(manager, shopId, vehicleId, { to: 'sold', at: soldAt, note: 'Sold on consignment; settled' }, actor, at);
         }
         const work = await approvedWork(manager, shopId, v);

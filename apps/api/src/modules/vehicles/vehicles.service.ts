@@ -5,6 +5,7 @@ import { convert, frameInRange, validateVin } from '@tappet/domain';
 import {
   canMoveVehicle,
   defaultShopSettings,
+  vehicleStatusLabels,
   vehicleStatusMoves,
   type FitmentMatch,
   type OdometerReading,
@@ -71,16 +72,6 @@ const clockSkewMs = 5 * 60_000;
 
 const iso = (d: Date | string) => new Date(d).toISOString();
 
-/** The statuses in the words the screens use, for messages. */
-export const vehicleStatusWords: Record<VehicleStatus, string> = {
-  arrived: 'Arrived',
-  assessing: 'Being assessed',
-  in_work: 'In work',
-  ready: 'Ready',
-  handed_over: 'Handed over',
-  sold: 'Sold',
-};
-
 /** The outcome of the VIN check for a record: what to store. */
 interface VinDecision {
   acknowledged: boolean;
@@ -141,7 +132,7 @@ export async function moveVehicleStatus(manager: EntityManager, shopId: string, 
     throw new HttpError(
       409,
       'conflict',
-      `A vehicle that is “${vehicleStatusWords[before.status]}” cannot move to “${vehicleStatusWords[move.to]}”. ${allowed.length ? `It can move to: ${allowed.map((s) => vehicleStatusWords[s]).join(', ')}.` : 'Its stay has ended.'}`,
+      `A vehicle that is “${vehicleStatusLabels[before.status]}” cannot move to “${vehicleStatusLabels[move.to]}”. ${allowed.length ? `It can move to: ${allowed.map((s) => vehicleStatusLabels[s]).join(', ')}.` : 'Its stay has ended.'}`,
     );
   }
   if (at.getTime() < new Date(before.statusSince).getTime()) throw badRequest('The date of the move is earlier than the last move. Enter a later date.');
@@ -154,7 +145,7 @@ export async function moveVehicleStatus(manager: EntityManager, shopId: string, 
       throw new HttpError(
         409,
         'conflict',
-        `This vehicle cannot be “${vehicleStatusWords[move.to]}” yet: ${first.join('; ')}${blockers.length > 3 ? ` and ${blockers.length - 3} more` : ''}. Put the work right on the job, or have the owner sign it off there.`,
+        `This vehicle cannot be “${vehicleStatusLabels[move.to]}” yet: ${first.join('; ')}${blockers.length > 3 ? ` and ${blockers.length - 3} more` : ''}. Put the work right on the job, or have the owner sign it off there.`,
         { reason: 'safety_blockers', blockers },
       );
     }
@@ -469,7 +460,7 @@ export function createVehiclesService(deps: { db: Database; clock: Clock; files:
       const full = await detail(shopId, vehicleId);
       const entries: TimelineEntry[] = [];
       for (const c of full.statusHistory) {
-        entries.push({ kind: 'status', at: c.at, title: c.from === null ? `Arrived` : `${vehicleStatusWords[c.from]} → ${vehicleStatusWords[c.to]}`, detail: c.note, by: c.by, refId: c.id });
+        entries.push({ kind: 'status', at: c.at, title: c.from === null ? `Arrived` : `${vehicleStatusLabels[c.from]} → ${vehicleStatusLabels[c.to]}`, detail: c.note, by: c.by, refId: c.id });
       }
       for (const r of full.odometerReadings) {
         // A reading dated today sits at the time it was recorded, not at noon ahead of later events.

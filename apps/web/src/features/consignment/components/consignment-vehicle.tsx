@@ -1,13 +1,12 @@
 import { useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
-import { consignmentTermsInputSchema, payoutInputSchema, settlementInputSchema, type ConsignmentVehicle } from '@tappet/contracts';
+import { vehicleStatusLabels, consignmentTermsInputSchema, payoutInputSchema, settlementInputSchema, type ConsignmentVehicle } from '@tappet/contracts';
 import { parseMinorUnits } from '@tappet/domain';
 import { Button, ConfirmDialog, ErrorState, LoadingState, Select, TextField, buttonClasses, useToast } from '@tappet/ui';
 import { paths } from '../../../config/paths';
 import { useCan } from '../../../lib/ability';
 import { errorMessage } from '../../../lib/api-client';
 import { useFormatMoney } from '../../../lib/shop-settings';
-import { statusWords } from '../../vehicles/components/words';
 import { recordPayout, saveTerms, settle, settlementPdfHref, useConsignmentMutation, useConsignmentVehicle } from '../api/consignment';
 
 const today = () => new Date().toISOString().slice(0, 10);
@@ -170,7 +169,7 @@ function SettleForm({ shopId, d, canWrite }: { shopId: string; d: ConsignmentVeh
         <p className="text-ink-muted">Record the terms first; then the sale can be settled.</p>
       ) : d.status !== 'ready' && d.status !== 'sold' ? (
         <p className="text-ink-muted">
-          Settling records the vehicle as sold, so it must be ready first: it is “{statusWords[d.status]}”.{' '}
+          Settling records the vehicle as sold, so it must be ready first: it is “{vehicleStatusLabels[d.status]}”.{' '}
           <Link to={paths.shop.vehicle.getHref(shopId, d.vehicleId)} className="text-accent underline underline-offset-4">
             Move it on the vehicle’s page
           </Link>

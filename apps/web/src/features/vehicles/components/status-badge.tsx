@@ -1,6 +1,7 @@
+import { vehicleStatusLabels } from '@tappet/contracts';
 import type { VehicleStatus } from '@tappet/contracts';
 import { cn } from '@tappet/ui';
-import { statusSymbols, statusWords } from './words';
+import { statusSymbols } from './words';
 
 /** A vehicle's status as a word with a shape: readable without colour. */
 export function VehicleStatusBadge({ status, className }: { status: VehicleStatus; className?: string }) {
@@ -8,7 +9,7 @@ export function VehicleStatusBadge({ status, className }: { status: VehicleStatu
   return (
     <span className={cn('inline-flex items-center gap-1.5 rounded-full border px-2.5 py-0.5 text-sm font-bold whitespace-nowrap', closed ? 'border-line text-ink-muted' : 'border-accent text-accent', className)}>
       <span aria-hidden="true">{statusSymbols[status]}</span>
-      {statusWords[status]}
+      {vehicleStatusLabels[status]}
     </span>
   );
 }

@@ -1,10 +1,10 @@
-import { vehicleStatuses, type VehicleDetail, type VehicleStatus } from '@tappet/contracts';
+import { vehicleStatusLabels, vehicleStatuses, type VehicleDetail, type VehicleStatus } from '@tappet/contracts';
 import { Button, Dialog, FormDialogFooter, FormMessage, TextField, useToast } from '@tappet/ui';
 import { useId, useState, type FormEvent } from 'react';
 import { errorMessage } from '../../../lib/api-client';
 import { useMoveVehicle } from '../api/mutations';
 import { VehicleStatusBadge } from './status-badge';
-import { moveWords, statusWords } from './words';
+import { moveWords } from './words';
 import { formatDateTime } from '../../../lib/dates';
 
 /** The current status, when it began, and buttons for the moves the vehicle may make next. */
@@ -47,7 +47,7 @@ function MoveDialog({ shopId, vehicle, to, onClose }: { shopId: string; vehicle:
       { to, at, note: note || null },
       {
         onSuccess: () => {
-          toast.show(`Moved to “${statusWords[to]}”.`, 'ok');
+          toast.show(`Moved to “${vehicleStatusLabels[to]}”.`, 'ok');
           onClose();
         },
       },
@@ -59,7 +59,7 @@ function MoveDialog({ shopId, vehicle, to, onClose }: { shopId: string; vehicle:
       open
       onClose={onClose}
       title={`${moveWords[to]}?`}
-      description={`From “${statusWords[vehicle.status]}” to “${statusWords[to]}”. The move is recorded with your name.`}
+      description={`From “${vehicleStatusLabels[vehicle.status]}” to “${vehicleStatusLabels[to]}”. The move is recorded with your name.`}
       footer={<FormDialogFooter formId={formId} submitLabel={moveWords[to]} loading={move.isPending} onCancel={onClose} />}
     >
       <form id={formId} onSubmit={onSubmit} noValidate className="flex flex-col gap-4">

@@ -1,4 +1,4 @@
-import { vehicleKinds, vehicleStatuses, type VehicleListResponse } from '@tappet/contracts';
+import { vehicleStatusLabels, vehicleKinds, vehicleStatuses, type VehicleListResponse } from '@tappet/contracts';
 import { Button, createColumnHelper, DataTable, EmptyState, ErrorState, LoadingState, Num, Select, TextField } from '@tappet/ui';
 import { useMemo, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
@@ -6,7 +6,7 @@ import { paths } from '../../../config/paths';
 import { errorMessage } from '../../../lib/api-client';
 import { useVehicles, type VehicleListParams } from '../api/get-vehicles';
 import { VehicleStatusBadge } from './status-badge';
-import { formatOdometer, kindWords, statusWords, vehicleTitle } from './words';
+import { formatOdometer, kindWords, vehicleTitle } from './words';
 
 type Row = VehicleListResponse['items'][number];
 const column = createColumnHelper<Row>();
@@ -143,7 +143,7 @@ export function VehicleList({ shopId, params, filtered, onChange, onClear, empty
           label="Status"
           value={params.status ?? ''}
           onChange={(e) => onChange({ status: (e.currentTarget.value || undefined) as VehicleListParams['status'], page: 1 })}
-          options={[{ value: '', label: 'Every status' }, ...vehicleStatuses.map((s) => ({ value: s, label: statusWords[s] }))]}
+          options={[{ value: '', label: 'Every status' }, ...vehicleStatuses.map((s) => ({ value: s, label: vehicleStatusLabels[s] }))]}
         />
         <Select
           label="Marque"

@@ -7,15 +7,6 @@ export const kindWords: Record<VehicleKind, string> = {
   consignment: 'Consignment',
 };
 
-export const statusWords: Record<VehicleStatus, string> = {
-  arrived: 'Arrived',
-  assessing: 'Being assessed',
-  in_work: 'In work',
-  ready: 'Ready',
-  handed_over: 'Handed over',
-  sold: 'Sold',
-};
-
 /** What the button that moves a vehicle to each status says. */
 export const moveWords: Record<VehicleStatus, string> = {
   arrived: 'Back in',
