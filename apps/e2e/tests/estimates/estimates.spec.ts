@@ -134,6 +134,7 @@ test('the owner agrees consignment terms, settles the sale, prints the settlemen
   await page.setViewportSize({ width: 820, height: 1180 });
   await page.goto(`/shops/${shopId}/consignment`);
   await expect(page.getByRole('heading', { level: 1, name: 'Consignment' })).toBeVisible();
+  await expect(page.getByRole('row', { name: /Ashcombe Kestrel 750/ })).toContainText('ArrivedMarit SolvangNot recorded yetNot settled yet');
   await page.getByRole('link', { name: '1971 Ashcombe Kestrel 750' }).click();
   await expect(page.getByRole('heading', { level: 1, name: '1971 Ashcombe Kestrel 750' })).toBeVisible();
 
@@ -178,4 +179,10 @@ test('the owner agrees consignment terms, settles the sale, prints the settlemen
   await payout.getByRole('button', { name: 'Record the payout' }).click();
   await expect(page.getByRole('status').filter({ hasText: 'ASH-KESTREL-1' })).toContainText('by bank transfer');
   await page.screenshot({ path: shot(testInfo, 'consignment-settlement-tablet.png'), fullPage: true });
+
+  // The list shows the vehicle sold, settled and paid.
+  await page.goto(`/shops/${shopId}/consignment`);
+  const row = page.getByRole('row', { name: /Ashcombe Kestrel 750/ });
+  await expect(row).toContainText('Sold');
+  await expect(row).toContainText(/CS-\d{6} · payout £10,801\.87 · paid/);
 });

@@ -3,6 +3,7 @@ import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { errorMessage } from '../../../lib/api-client';
 import { useFormatMoney } from '../../../lib/shop-settings';
+import { VehicleStatusBadge } from '../../vehicles/components/status-badge';
 import { useConsignmentList } from '../api/consignment';
 
 /** Every consigned vehicle with its terms and settlement state. */
@@ -24,6 +25,7 @@ export function ConsignmentList({ shopId }: { shopId: string }) {
         <thead>
           <tr className="border-b-2 border-line text-sm text-ink-muted">
             <th scope="col" className="py-2 pr-3">Vehicle</th>
+            <th scope="col" className="py-2 pr-3">Status</th>
             <th scope="col" className="py-2 pr-3">Consignor</th>
             <th scope="col" className="py-2 pr-3">Terms</th>
             <th scope="col" className="py-2 pr-3">Settlement</th>
@@ -37,6 +39,9 @@ export function ConsignmentList({ shopId }: { shopId: string }) {
                   {v.vehicle}
                 </Link>
               </td>
+              <td className="py-2 pr-3">
+                <VehicleStatusBadge status={v.status} />
+              </td>
               <td className="py-2 pr-3">{v.consignorName ?? '—'}</td>
               <td className="py-2 pr-3">{v.hasTerms ? 'Agreed' : 'Not recorded yet'}</td>
               <td className="py-2 pr-3">
@@ -45,7 +50,7 @@ export function ConsignmentList({ shopId }: { shopId: string }) {
                     <span className="font-mono">{v.settlementReference}</span> · payout {money(v.payoutMinor ?? 0)} · {v.paid ? 'paid' : 'not paid yet'}
                   </>
                 ) : (
-                  'Not sold yet'
+                  'Not settled yet'
                 )}
               </td>
             </tr>

@@ -1,5 +1,4 @@
-import { vehicleStatusLabels } from '@tappet/contracts';
-import type { VehicleStatus } from '@tappet/contracts';
+import { vehicleStatusLabels, type VehicleStatus } from '@tappet/contracts';
 import { cn } from '@tappet/ui';
 import { statusSymbols } from './words';
 
