@@ -27,6 +27,9 @@ export function id(v: unknown): string {
   if (!uuid.test(text(v))) throw new Mismatch();
   return v as string;
 }
+export function idOrNull(v: unknown): string | null {
+  return v === null ? null : id(v);
+}
 export function flag(v: unknown): boolean {
   if (typeof v !== 'boolean') throw new Mismatch();
   return v;
@@ -35,6 +38,9 @@ export function flag(v: unknown): boolean {
 export function finite(v: unknown): number {
   if (typeof v !== 'number' || !Number.isFinite(v)) throw new Mismatch();
   return v;
+}
+export function finiteOrNull(v: unknown): number | null {
+  return v === null ? null : finite(v);
 }
 /** zod's z.number().int(): a safe integer. */
 export function integer(v: unknown): number {

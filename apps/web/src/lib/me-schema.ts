@@ -1,6 +1,6 @@
 import type { MeWithActiveShop } from '@tappet/contracts';
 import { shopRoles } from '@tappet/contracts';
-import { flag, handChecked, id, integerOrNull, Mismatch, oneOf, record, text, textOrNull } from './hand-check';
+import { flag, handChecked, id, idOrNull, integerOrNull, Mismatch, oneOf, record, text, textOrNull } from './hand-check';
 
 // /api/me's answer, checked by hand rather than with the contract's zod schema: /api/me is the first
 // request of every signed-in screen, and its check would otherwise make zod (27 KB gzipped, and its
@@ -28,6 +28,6 @@ export const meSchema = handChecked((data): MeWithActiveShop => {
   return {
     user: { id: id(user['id']), email: text(user['email']), name: text(user['name']), isPlatformAdmin: flag(user['isPlatformAdmin']) },
     memberships: me['memberships'].map(membership),
-    activeShopId: active === null ? null : id(active),
+    activeShopId: idOrNull(active),
   };
 });

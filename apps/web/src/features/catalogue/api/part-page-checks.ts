@@ -1,5 +1,5 @@
 import { interchanges, linkKinds, partOrigins, partStatuses, type Fitment, type LineageGraphResponse, type LineageProblemView, type Part, type PartDetailResponse, type PartLink } from '@tappet/contracts';
-import { finite, flag, handChecked, id, integerOrNull, list, oneOf, record, text, textOrNull } from '../../../lib/hand-check';
+import { finite, flag, handChecked, id, idOrNull, integerOrNull, list, oneOf, record, text, textOrNull } from '../../../lib/hand-check';
 
 // The part page's two answers (the part, its lineage graph), checked by hand rather than with
 // partDetailResponseSchema and lineageGraphResponseSchema: the page is opened straight from a
@@ -40,7 +40,7 @@ function link(v: unknown): PartLink {
     fromPartId: id(l['fromPartId']),
     fromNumber: text(l['fromNumber']),
     kind: oneOf(linkKinds, l['kind']),
-    toPartId: l['toPartId'] === null ? null : id(l['toPartId']),
+    toPartId: idOrNull(l['toPartId']),
     toNumber: text(l['toNumber']),
     quantity: finite(l['quantity']),
     interchange: oneOf(interchanges, l['interchange']),

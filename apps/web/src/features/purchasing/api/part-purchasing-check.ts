@@ -1,5 +1,5 @@
 import type { Listing, PartPurchasingResponse } from '@tappet/contracts';
-import { flag, handChecked, id, integer, integerOrNull, list, record, text, textOrNull } from '../../../lib/hand-check';
+import { flag, handChecked, id, idOrNull, integer, integerOrNull, list, record, text, textOrNull } from '../../../lib/hand-check';
 
 // A part's purchasing answer (GET or PUT …/purchasing/parts/:partId), checked by hand rather than
 // with partPurchasingResponseSchema, so that the part page loads no zod
@@ -33,7 +33,7 @@ export const partPurchasingCheck = handChecked((data): PartPurchasingResponse =>
   const d = record(data);
   return {
     partId: id(d['partId']),
-    preferredSupplierId: d['preferredSupplierId'] === null ? null : id(d['preferredSupplierId']),
+    preferredSupplierId: idOrNull(d['preferredSupplierId']),
     minQty: integerOrNull(d['minQty']),
     maxQty: integerOrNull(d['maxQty']),
     listings: list(d['listings'], listing),

@@ -1,5 +1,5 @@
 import { sellPriceBases, type PartSellPrice, type SellPricesResponse } from '@tappet/contracts';
-import { finite, handChecked, integerOrNull, list, oneOf, record, text } from '../../../lib/hand-check';
+import { finiteOrNull, handChecked, integerOrNull, list, oneOf, record, text } from '../../../lib/hand-check';
 
 // The sell prices answer, checked by hand rather than with sellPricesResponseSchema: the lookup's
 // results and the part page show sell prices, and neither should load zod for them
@@ -12,7 +12,7 @@ function price(v: unknown): PartSellPrice {
     partId: text(p['partId']),
     unitMinor: integerOrNull(p['unitMinor']),
     basis: oneOf(sellPriceBases, p['basis']),
-    markupPercent: p['markupPercent'] === null ? null : finite(p['markupPercent']),
+    markupPercent: finiteOrNull(p['markupPercent']),
     listPriceMinor: integerOrNull(p['listPriceMinor']),
   };
   // Like zod's optional(): cost and margin come through only when the API gives them.

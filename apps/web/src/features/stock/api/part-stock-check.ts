@@ -1,5 +1,5 @@
 import { holdStatuses, stockConditions, valuationMethods, type FillOptionStock, type Hold, type PartStockResponse, type SerialItem, type StockSummary } from '@tappet/contracts';
-import { finite, flag, handChecked, id, integer, list, oneOf, record, text, textOrNull } from '../../../lib/hand-check';
+import { finite, finiteOrNull, flag, handChecked, id, idOrNull, integer, list, oneOf, record, text, textOrNull } from '../../../lib/hand-check';
 
 // A part's stock answer (GET …/stock/parts/:partId), checked by hand rather than with
 // partStockResponseSchema: with the purchasing and price answers, it was what still brought zod
@@ -9,8 +9,6 @@ import { finite, flag, handChecked, id, integer, list, oneOf, record, text, text
 type Valuation = PartStockResponse['valuation'][number];
 type SummaryLine = StockSummary['lines'][number];
 type OptionPart = FillOptionStock['parts'][number];
-
-const idOrNull = (v: unknown) => (v === null ? null : id(v));
 
 function summaryLine(v: unknown): SummaryLine {
   const l = record(v);
@@ -63,7 +61,7 @@ function valuation(v: unknown): Valuation {
     method: oneOf(valuationMethods, x['method']),
     quantity: integer(x['quantity']),
     valueMinor: integer(x['valueMinor']),
-    unitCostMinor: x['unitCostMinor'] === null ? null : finite(x['unitCostMinor']),
+    unitCostMinor: finiteOrNull(x['unitCostMinor']),
   };
 }
 
