@@ -2,8 +2,8 @@
    data layer, as seeds/demo.ts does (docs/decisions/002-module-boundaries.md). */
 // HTTP throughput (issue 14): the API runs in its own process on loopback (as `npm start` runs it,
 // request logging on); autocannon loads it from this process. Figures: a trivial route (the ceiling
-// on this machine), authenticated lookups of typo'd numbers, and the same lookups while a
-// 50,000-row catalogue import commits. Target: lookups ≥ 1,500 req/s with p99 ≤ 50 ms.
+// on this machine), an authenticated shop read (what every shop route pays), authenticated lookups
+// of typo'd numbers, and the same lookups while a 50,000-row catalogue import commits. Target: lookups ≥ 1,500 req/s with p99 ≤ 50 ms.
 import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -110,6 +110,11 @@ export async function runHttpBench(partCount = 50_000): Promise<Figure[]> {
 
     await autocannon({ url: `${base}/api/health`, connections: CONNECTIONS, duration: 2 }); // warm-up
     report('HTTP: GET /api/health (ceiling)', await measure(() => autocannon({ url: `${base}/api/health`, connections: CONNECTIONS, duration: SECONDS })));
+    // What every shop route pays before its own work: the session, the membership and the
+    // member's permissions, the checks of the path. The shop's settings are one row to read.
+    const floor = `${base}/api/shops/${shopId}/settings`;
+    await autocannon({ url: floor, connections: CONNECTIONS, duration: 2, headers: { cookie: mechanic } }); // warm-up
+    report('HTTP: authenticated shop read, GET settings (the floor under every shop route)', await measure(() => autocannon({ url: floor, connections: CONNECTIONS, duration: SECONDS, headers: { cookie: mechanic } })));
     // The shop's lookup index and lineage graph are built once per catalogue version: build them
     // before measuring, as the lookup benchmark does, so the figure is the steady state.
     const first = await fetch(`${base}${queries[0]}`, { headers: { cookie: mechanic } });

@@ -63,9 +63,10 @@ function descriptions(): string {
   open orders; the reorder-list service call timed over repeated runs.
 - **http** — the API in its own process on loopback (request logging on, as \`npm start\` runs
   it), loaded by autocannon from the benchmark process with 10 connections for 10 s: a trivial
-  route as the ceiling, authenticated lookups of typo'd numbers over 50,000 parts, and the same
-  while a 50,000-row import commits; each with the API process's CPU time per request (from
-  /proc), which a shared machine disturbs less than the throughput.
+  route as the ceiling, an authenticated read of the shop's settings as the floor under every shop
+  route (session, membership, permissions, checks), authenticated lookups of typo'd numbers over
+  50,000 parts, and the same while a 50,000-row import commits; each with the API process's CPU
+  time per request (from /proc), which a shared machine disturbs less than the throughput.
 - **lighthouse** — the demo's lookup and part pages, signed in as the demo mechanic, in Debian's
   Chromium, with Lighthouse 12's default (mobile, simulated slow network and CPU) and desktop
   settings; each page five times, and the figures are the median run's (the note lists every
