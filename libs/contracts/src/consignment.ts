@@ -100,6 +100,8 @@ export interface ConsignmentVehicle {
   vehicle: string;
   kind: VehicleKind;
   status: VehicleStatus;
+  /** When the vehicle entered its status (for a sold one: the sale recorded on its page). */
+  statusSince: string;
   askingPriceMinor: number | null;
   currency: string;
   consignor: { id: string; name: string; email: string | null } | null;

@@ -13,7 +13,7 @@ import { EstimateEntity } from '../estimates/estimates.entity';
 import { jobApprovalState, vehicleLabel } from '../estimates/estimates.service';
 import { JobEntity } from '../jobs/jobs.entity';
 import { shopBasics } from '../sales/sales.settings';
-import { VehicleEntity, type VehicleRow } from '../vehicles/vehicles.entity';
+import { VehicleEntity, VehicleStatusChangeEntity, type VehicleRow } from '../vehicles/vehicles.entity';
 import { moveVehicleStatus } from '../vehicles/vehicles.service';
 import { ConsignmentSettlementEntity, ConsignmentTermsEntity, type ConsignmentSettlementRow, type ConsignmentTermsRow } from './consignment.entity';
 import { renderSettlementPdf } from './settlement-pdf';
@@ -97,6 +97,19 @@ export function createConsignmentService(deps: { db: Database; clock: Clock }) {
     return v;
   }
 
+  /**
+   * A vehicle already recorded as sold (on its own page) is settled for that sale: the sale date
+   * can be no later than the day it was recorded sold, nor before the move that preceded the sale.
+   */
+  async function saleDateAgreesWithSoldMove(manager: EntityManager, shopId: string, v: VehicleRow, soldOn: string): Promise<void> {
+    const soldDay = iso(v.statusSince).slice(0, 10);
+    if (soldOn > soldDay) throw badRequest(`This vehicle was recorded as sold on ${soldDay}: the sale date cannot be later than that.`);
+    const [, before] = await shopScoped(manager, VehicleStatusChangeEntity, shopId).find({ vehicleId: v.id }, { changedAt: 'DESC' }, 2);
+    if (before && soldOn < iso(before.changedAt).slice(0, 10)) {
+      throw badRequest(`The sale date is before the vehicle became “${vehicleStatusLabels[before.toStatus]}” (${iso(before.changedAt).slice(0, 10)}). Enter the day it was sold.`);
+    }
+  }
+
   async function detail(manager: EntityManager, shopId: string, vehicleId: string): Promise<ConsignmentVehicle> {
     const v = await shopScoped(manager, VehicleEntity, shopId).findOneOr404({ id: vehicleId }, 'No such vehicle in this shop.');
     const terms = await shopScoped(manager, ConsignmentTermsEntity, shopId).findOne({ vehicleId });
@@ -108,6 +121,7 @@ export function createConsignmentService(deps: { db: Database; clock: Clock }) {
       vehicle: vehicleLabel(v),
       kind: v.kind,
       status: v.status,
+      statusSince: iso(v.statusSince),
       askingPriceMinor: v.askingPriceMinor,
       currency: basics.currency,
       consignor: consignor ? { id: consignor.id, name: consignor.name, email: consignor.email } : null,
@@ -190,6 +204,8 @@ export function createConsignmentService(deps: { db: Database; clock: Clock }) {
           const soldAt = new Date(Math.min(at.getTime(), new Date(`${input.soldOn}T23:59:59.999Z`).getTime()));
           if (soldAt.getTime() < new Date(v.statusSince).getTime()) throw badRequest(`The sale date is before the vehicle became “${vehicleStatusLabels[v.status]}” (${iso(v.statusSince).slice(0, 10)}). Enter the day it was sold.`);
           await moveVehicleStatus(manager, shopId, vehicleId, { to: 'sold', at: soldAt, note: 'Sold on consignment; settled' }, actor, at);
+        } else {
+          await saleDateAgreesWithSoldMove(manager, shopId, v, input.soldOn);
         }
         const work = await approvedWork(manager, shopId, v);
         const figures = consignmentSettlement({ salePriceMinor: input.salePriceMinor, commission: commissionOf(terms), work: work.map((w) => ({ label: w.title, amountMinor: w.chargedMinor })) });

@@ -22,6 +22,7 @@ let mechanicId: string;
 let vehicles: VehicleFixture;
 let stock: StockFixture;
 let vehicleId: string;
+let ownerSignIn: { email: string; password: string };
 
 const url = (path = '') => `/api/shops/${shopId}/consignment${path}`;
 const binary = (res: Response, cb: (err: Error | null, body: Buffer) => void) => {
@@ -52,6 +53,7 @@ beforeAll(async () => {
   vehicles = await seedVehicleFixture(ctx.db, shopId, ctx.env.uploadsDir, 0);
   stock = await seedStockFixture(ctx.db, shopId, 0);
   owner = await signedInAgent(ctx.app, shop.byRole.owner.email, shop.password);
+  ownerSignIn = { email: shop.byRole.owner.email, password: shop.password };
   mechanic = await signedInAgent(ctx.app, shop.byRole.mechanic.email, shop.password);
   viewer = await signedInAgent(ctx.app, shop.byRole.viewer.email, shop.password);
   outsider = await signedInAgent(ctx.app, other.byRole.owner.email, other.password);
@@ -154,5 +156,37 @@ describe('consignment settlement', () => {
     const again = await owner.post(url(`/vehicles/${vehicleId}/settlement/payout`)).set(csrf).send({ paidOn: '2026-01-23', method: 'cash', reference: 'again' });
     expect(again.status).toBe(409);
     expect((await owner.get(url('/vehicles'))).body.vehicles[0]).toMatchObject({ paid: true, payoutMinor: 1_020_731 });
+  });
+
+  it('settles a vehicle already recorded as sold on its page for that sale: no later sale date, none before it was ready, no second move', async () => {
+    const v = await owner.post(`/api/shops/${shopId}/vehicles`).set(csrf).send({ kind: 'consignment', marque: 'Harrow', model: 'Tourer 500', year: 1959, customerId: vehicles.customerId });
+    expect(v.status, JSON.stringify(v.body)).toBe(201);
+    const id = v.body.id as string;
+    expect((await owner.put(url(`/vehicles/${id}/terms`)).set(csrf).send({ commissionKind: 'fixed', commissionFixedMinor: 50_000, agreedOn: '2026-01-15' })).status).toBe(200);
+    // Five days on (a fresh sign-in: the old session has ended), the moves are dated on the days they happened.
+    ctx.clock.advance(5 * 86_400_000);
+    const later = await signedInAgent(ctx.app, ownerSignIn.email, ownerSignIn.password);
+    for (const [to, at] of [['assessing', '2026-01-16T10:00:00.000Z'], ['ready', '2026-01-17T10:00:00.000Z'], ['sold', '2026-01-19T10:00:00.000Z']] as const) {
+      const moved = await later.post(`/api/shops/${shopId}/vehicles/${id}/status`).set(csrf).send({ to, at });
+      expect(moved.status, JSON.stringify(moved.body)).toBe(200);
+    }
+    const form = await later.get(url(`/vehicles/${id}`));
+    expect(form.body).toMatchObject({ status: 'sold', statusSince: '2026-01-19T10:00:00.000Z', settlement: null });
+
+    const afterSale = await later.post(url(`/vehicles/${id}/settlement`)).set(csrf).send({ salePriceMinor: 800_000, soldOn: '2026-01-20' });
+    expect(afterSale.status).toBe(400);
+    expect(afterSale.body.error.message).toBe('This vehicle was recorded as sold on 2026-01-19: the sale date cannot be later than that.');
+    const beforeReady = await later.post(url(`/vehicles/${id}/settlement`)).set(csrf).send({ salePriceMinor: 800_000, soldOn: '2026-01-16' });
+    expect(beforeReady.status).toBe(400);
+    expect(beforeReady.body.error.message).toBe('The sale date is before the vehicle became “Ready” (2026-01-17). Enter the day it was sold.');
+
+    // Recorded sold a day after the sale: that is the usual order, and the sale stands as recorded.
+    const settled = await later.post(url(`/vehicles/${id}/settlement`)).set(csrf).send({ salePriceMinor: 800_000, soldOn: '2026-01-18' });
+    expect(settled.status, JSON.stringify(settled.body)).toBe(201);
+    // By hand: 800 000 − 50 000 fixed commission − no approved work = 750 000.
+    expect(settled.body.settlement).toMatchObject({ soldOn: '2026-01-18', commissionMinor: 50_000, workMinor: 0, payoutMinor: 750_000 });
+    expect(settled.body).toMatchObject({ status: 'sold', statusSince: '2026-01-19T10:00:00.000Z' });
+    const moves = await ctx.db.reader.findBy(AuditEventEntity, { entityId: id, action: 'vehicle.status_changed' });
+    expect(moves.map((m) => m.changes?.['status']?.after).sort()).toEqual(['assessing', 'ready', 'sold']);
   });
 });

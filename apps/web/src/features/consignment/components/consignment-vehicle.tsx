@@ -131,7 +131,9 @@ function SettleForm({ shopId, d, canWrite }: { shopId: string; d: ConsignmentVeh
   const money = useFormatMoney(shopId);
   const make = useConsignmentMutation(shopId, settle);
   const [price, setPrice] = useState(d.askingPriceMinor ? (d.askingPriceMinor / 100).toFixed(2) : '');
-  const [soldOn, setSoldOn] = useState(today());
+  // A vehicle already recorded as sold on its own page is settled for that sale: its day is the default.
+  const soldDay = d.status === 'sold' ? d.statusSince.slice(0, 10) : null;
+  const [soldOn, setSoldOn] = useState(soldDay ?? today());
   const [note, setNote] = useState('');
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [confirming, setConfirming] = useState<{ salePriceMinor: number; soldOn: string; note: string | null } | null>(null);
@@ -178,7 +180,15 @@ function SettleForm({ shopId, d, canWrite }: { shopId: string; d: ConsignmentVeh
       ) : canWrite ? (
         <form className="grid max-w-xl gap-3" onSubmit={submit} noValidate aria-label="Settle the sale">
           <TextField label="Sale price" inputMode="decimal" value={price} onChange={(e) => setPrice(e.target.value)} error={errors['salePriceMinor']} />
-          <TextField label="Sold on" type="date" value={soldOn} onChange={(e) => setSoldOn(e.target.value)} error={errors['soldOn']} />
+          <TextField
+            label="Sold on"
+            type="date"
+            value={soldOn}
+            max={soldDay ?? undefined}
+            onChange={(e) => setSoldOn(e.target.value)}
+            error={errors['soldOn']}
+            hint={soldDay ? `Recorded as sold on ${soldDay} on the vehicle’s page: the sale date cannot be later.` : undefined}
+          />
           <TextField label="Note (optional)" value={note} onChange={(e) => setNote(e.target.value)} maxLength={1000} />
           {errors['form'] && (
             <p role="alert" className="font-bold text-fail">
