@@ -29,10 +29,15 @@ export function VehicleList({ shopId, params, filtered, onChange, onClear, empty
       column.display({
         id: 'vehicle',
         header: 'Vehicle',
+        // The kind sits under the title rather than in a column of its own: on a tablet the
+        // numbers and the owner need the width more.
         cell: (info) => (
-          <Link to={paths.shop.vehicle.getHref(shopId, info.row.original.id)} className="font-bold text-accent underline-offset-4 hover:underline">
-            {vehicleTitle(info.row.original)}
-          </Link>
+          <span className="flex flex-col">
+            <Link to={paths.shop.vehicle.getHref(shopId, info.row.original.id)} className="font-bold text-accent underline-offset-4 hover:underline">
+              {vehicleTitle(info.row.original)}
+            </Link>
+            <span className="text-sm text-ink-muted">{kindWords[info.row.original.kind]}</span>
+          </span>
         ),
       }),
       column.display({
@@ -42,7 +47,7 @@ export function VehicleList({ shopId, params, filtered, onChange, onClear, empty
           const v = info.row.original;
           if (!v.frameNumber && !v.engineNumber && !v.vin) return <span className="text-ink-muted">—</span>;
           return (
-            <span className="flex flex-col font-mono text-sm">
+            <span className="flex flex-col font-mono text-sm whitespace-nowrap">
               {v.frameNumber && <span>{v.frameNumber}</span>}
               {v.engineNumber && <span className="text-ink-muted">{v.engineNumber}</span>}
               {!v.frameNumber && v.vin && <span>{v.vin}</span>}
@@ -50,7 +55,6 @@ export function VehicleList({ shopId, params, filtered, onChange, onClear, empty
           );
         },
       }),
-      column.accessor('kind', { header: 'Kind', enableSorting: false, cell: (info) => kindWords[info.getValue()] }),
       column.display({ id: 'customer', header: 'Owner / consignor', cell: (info) => info.row.original.customer?.name ?? <span className="text-ink-muted">—</span> }),
       column.accessor('status', { header: 'Status', enableSorting: false, cell: (info) => <VehicleStatusBadge status={info.getValue()} /> }),
       column.display({
@@ -124,7 +128,7 @@ export function VehicleList({ shopId, params, filtered, onChange, onClear, empty
 
   return (
     <div className="flex flex-col gap-4">
-      <form role="search" aria-label="Filter vehicles" className="grid grid-cols-1 items-end gap-3 sm:grid-cols-2 lg:grid-cols-[2fr_1fr_1fr_1fr_auto]" onSubmit={(e) => e.preventDefault()}>
+      <form role="search" aria-label="Filter vehicles" className="grid grid-cols-1 items-end gap-3 sm:grid-cols-2 xl:grid-cols-[2fr_1fr_1fr_1fr_auto]" onSubmit={(e) => e.preventDefault()}>
         <TextField
           label="Search"
           type="search"

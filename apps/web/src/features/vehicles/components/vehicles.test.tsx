@@ -96,7 +96,9 @@ describe('the vehicle list', () => {
     const { router } = renderApp(`/shops/${shopA}/vehicles`);
     const table = await screen.findByRole('table', { name: 'Vehicles in the shop' }, slow);
     expect(within(table).getByRole('link', { name: '1971 Astley-Pike Sprint 500' })).toHaveAttribute('href', `/shops/${shopA}/vehicles/${vehicleId}`);
-    expect(table).toHaveTextContent('Shop stock');
+    // The kind is written under the vehicle's title, not in a column of its own.
+    expect(within(table).getAllByRole('columnheader').map((h) => h.textContent)).toEqual(['Vehicle', 'Frame / engine', 'Owner / consignor', 'Status', 'Odometer']);
+    expect(within(table).getAllByRole('row')[1]!.querySelector('td')).toHaveTextContent('1971 Astley-Pike Sprint 500Shop stock');
     await userEvent.selectOptions(screen.getByLabelText('Status'), 'in_work');
     await waitFor(() => expect(router.state.location.search).toBe('?status=in_work'));
     await waitFor(() => expect(requests.some((r) => r.path === `/shops/${shopA}/vehicles?status=in_work`)).toBe(true));
