@@ -1,11 +1,12 @@
 import type { StockSummary } from '@tappet/contracts';
-import { Button, ErrorState, LoadingState, Num, Panel, PartNumber } from '@tappet/ui';
+import { Button, ErrorState, LoadingState, MenuButton, Num, Panel, PartNumber } from '@tappet/ui';
 import { lazy, Suspense, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { useCan } from '../../../lib/ability';
 import { errorMessage } from '../../../lib/api-client';
 import { usePartStock } from '../api/get-part-stock';
+import { BinWithCondition } from './bin-with-condition';
 import type { StockAction, StockActionPreset } from './stock-action-dialog';
 import { StockActionDialogOnDemand } from './stock-action-dialog-on-demand';
 import { conditionLabel, money } from './words';
@@ -69,8 +70,7 @@ export function PartStockPanel({ shopId, partId }: { shopId: string; partId: str
             <caption className="sr-only">Stock of {s.number} per bin and condition</caption>
             <thead>
               <tr className="border-b-2 border-line text-left">
-                <th scope="col" className="px-2 py-2">Bin</th>
-                <th scope="col" className="px-2 py-2">Condition</th>
+                <th scope="col" className="px-2 py-2">Bin and condition</th>
                 <th scope="col" className="px-2 py-2 text-right whitespace-nowrap">On hand</th>
                 <th scope="col" className="px-2 py-2 text-right whitespace-nowrap">Held</th>
                 <th scope="col" className="px-2 py-2 text-right whitespace-nowrap">Free</th>
@@ -81,12 +81,18 @@ export function PartStockPanel({ shopId, partId }: { shopId: string; partId: str
               {s.stock.lines.map((l) => {
                 const preset = { ...base, binId: l.binId, condition: l.condition };
                 const where = `from ${l.binCode}, ${conditionLabel(l.condition).toLowerCase()}`;
+                // The everyday two as buttons and the rest in a menu, as in the stock list: a line
+                // stays one row high on a phone instead of stacking five buttons.
+                const more = [
+                  ...(can.move && l.free > 0 ? [{ key: 'move', label: `Move ${s.number} ${where}`, onSelect: () => setDialog({ action: 'move', preset }) }] : []),
+                  ...(can.adjust ? [{ key: 'adjust', label: `Adjust ${s.number} ${where}`, onSelect: () => setDialog({ action: 'adjust', preset }) }] : []),
+                  ...(can.count ? [{ key: 'count', label: `Count ${s.number} ${where}`, onSelect: () => setDialog({ action: 'count', preset }) }] : []),
+                ];
                 return (
                   <tr key={`${l.binId}|${l.condition}`} className="border-b border-line">
                     <td className="px-2 py-2">
-                      <PartNumber>{l.binCode}</PartNumber>
+                      <BinWithCondition code={l.binCode} condition={l.condition} />
                     </td>
-                    <td className="px-2 py-2">{conditionLabel(l.condition)}</td>
                     <td className="px-2 py-2 text-right">
                       <Num>{l.onHand}</Num>
                     </td>
@@ -97,12 +103,10 @@ export function PartStockPanel({ shopId, partId }: { shopId: string; partId: str
                       <Num className="font-bold">{l.free}</Num>
                     </td>
                     <td className="px-2 py-2">
-                      <div className="flex flex-wrap gap-1">
-                        {can.hold && l.free > 0 && act('hold', 'Hold', preset, where)}
+                      <div className="flex flex-nowrap gap-1">
                         {can.issue && l.free > 0 && act('issue', 'Issue', preset, where)}
-                        {can.move && l.free > 0 && act('move', 'Move', preset, where)}
-                        {can.adjust && act('adjust', 'Adjust', preset, where)}
-                        {can.count && act('count', 'Count', preset, where)}
+                        {can.hold && l.free > 0 && act('hold', 'Hold', preset, where)}
+                        {more.length > 0 && <MenuButton label="More" accessibleLabel={`More actions for ${s.number} ${where}`} variant="secondary" align="end" items={more} />}
                       </div>
                     </td>
                   </tr>
