@@ -185,8 +185,16 @@ export const holdSchema = z.object({
   closedAt: z.string().nullable(),
 });
 export type Hold = z.infer<typeof holdSchema>;
-export const holdListQuerySchema = z.object({ partId: idSchema.optional(), status: z.enum(holdStatuses).default('active') }).strict();
-export const holdListResponseSchema = z.object({ holds: z.array(holdSchema) });
+/** Active holds oldest first (the longest waiting on top); released and issued ones newest first. */
+export const holdListQuerySchema = z
+  .object({
+    partId: idSchema.optional(),
+    status: z.enum(holdStatuses).default('active'),
+    page: z.coerce.number().int().min(1).default(1),
+    pageSize: z.coerce.number().int().min(1).max(200, 'At most 200 rows a page.').default(50),
+  })
+  .strict();
+export const holdListResponseSchema = z.object({ holds: z.array(holdSchema), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() });
 export type HoldListResponse = z.infer<typeof holdListResponseSchema>;
 
 export const movementSchema = z.object({

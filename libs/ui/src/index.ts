@@ -26,6 +26,7 @@ export { Badge, StatusPill, statusWords, type BadgeTone, type Status } from './b
 export { Caution, type CautionProps } from './caution';
 export { PartNumber, Num } from './part-number';
 export { MenuButton, type MenuButtonProps, type MenuItem } from './menu-button';
+export { PageNav, type PageNavProps } from './page-nav';
 export { useTheme, applyStoredTheme, type ThemeChoice } from './theme';
 export { ThemeMenu } from './theme-menu';
 export {

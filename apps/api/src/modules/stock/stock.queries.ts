@@ -165,7 +165,36 @@ export async function listMovements(reader: EntityManager, shopId: string, filte
 }
 
 /** Holds of the shop (active ones by default), oldest first. */
-export async function listHolds(reader: EntityManager, shopId: string, filters: { partId?: string; status?: 'active' | 'released' | 'issued'; ids?: string[] }): Promise<Hold[]> {
+type HoldFilters = { partId?: string; status?: 'active' | 'released' | 'issued'; ids?: string[] };
+
+/**
+ * Holds matching the filters: active ones oldest first (the longest waiting on top), closed ones
+ * newest first. Every match unless `window` asks for one page of them.
+ */
+export async function listHolds(reader: EntityManager, shopId: string, filters: HoldFilters, window?: { limit: number; offset: number }): Promise<Hold[]> {
+  const { where, params } = holdWhere(shopId, filters);
+  const order = filters.status && filters.status !== 'active' ? 'h.closed_at DESC, h.id DESC' : 'h.created_at, h.id';
+  const rows = await reader.query<Array<Omit<Hold, 'createdAt' | 'closedAt'> & { createdAt: string; closedAt: string | null }>>(
+    `SELECT h.id, h.part_id AS partId, p.number AS partNumber, p.description AS partDescription, h.bin_id AS binId, b.code AS binCode, h.condition,
+       h.quantity, h.purpose, h.job_id AS jobId, h.status, h.created_at AS createdAt, u.name AS createdByName, h.closed_at AS closedAt
+     FROM stock_holds h
+     JOIN parts p ON p.shop_id = h.shop_id AND p.id = h.part_id
+     JOIN stock_bins b ON b.shop_id = h.shop_id AND b.id = h.bin_id
+     LEFT JOIN users u ON u.id = h.created_by_user_id
+     WHERE ${where.join(' AND ')} ORDER BY ${order}${window ? ' LIMIT ? OFFSET ?' : ''}`,
+    window ? [...params, window.limit, window.offset] : params,
+  );
+  return rows.map((r) => ({ ...r, createdAt: isoOf(r.createdAt), closedAt: r.closedAt ? isoOf(r.closedAt) : null }));
+}
+
+/** How many holds match the filters. */
+export async function countHolds(reader: EntityManager, shopId: string, filters: HoldFilters): Promise<number> {
+  const { where, params } = holdWhere(shopId, filters);
+  const [row] = await reader.query<Array<{ n: number }>>(`SELECT COUNT(*) AS n FROM stock_holds h WHERE ${where.join(' AND ')}`, params);
+  return Number(row?.n ?? 0);
+}
+
+function holdWhere(shopId: string, filters: HoldFilters): { where: string[]; params: unknown[] } {
   const where = ['h.shop_id = ?'];
   const params: unknown[] = [shopId];
   const add = (sql: string, ...values: unknown[]) => {
@@ -175,17 +204,7 @@ export async function listHolds(reader: EntityManager, shopId: string, filters: 
   if (filters.ids) add(`h.id IN (${marks(filters.ids.length || 1)})`, ...(filters.ids.length ? filters.ids : ['']));
   if (filters.partId) add('h.part_id = ?', filters.partId);
   if (filters.status) add('h.status = ?', filters.status);
-  const rows = await reader.query<Array<Omit<Hold, 'createdAt' | 'closedAt'> & { createdAt: string; closedAt: string | null }>>(
-    `SELECT h.id, h.part_id AS partId, p.number AS partNumber, p.description AS partDescription, h.bin_id AS binId, b.code AS binCode, h.condition,
-       h.quantity, h.purpose, h.job_id AS jobId, h.status, h.created_at AS createdAt, u.name AS createdByName, h.closed_at AS closedAt
-     FROM stock_holds h
-     JOIN parts p ON p.shop_id = h.shop_id AND p.id = h.part_id
-     JOIN stock_bins b ON b.shop_id = h.shop_id AND b.id = h.bin_id
-     LEFT JOIN users u ON u.id = h.created_by_user_id
-     WHERE ${where.join(' AND ')} ORDER BY h.created_at, h.id LIMIT 500`,
-    params,
-  );
-  return rows.map((r) => ({ ...r, createdAt: isoOf(r.createdAt), closedAt: r.closedAt ? isoOf(r.closedAt) : null }));
+  return { where, params };
 }
 
 /**

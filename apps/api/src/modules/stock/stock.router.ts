@@ -102,7 +102,7 @@ export function stockRouter(deps: { stock: StockService }): Router {
 
   router.get('/holds', validate({ params: shopIdParamsSchema, query: holdListQuerySchema }), async (req, res) => {
     authorize(req, 'read', 'Stock');
-    res.json({ holds: await stock.holds(shopId(req), queryOf(holdListQuerySchema, req)) });
+    res.json(await stock.holds(shopId(req), queryOf(holdListQuerySchema, req)));
   });
 
   router.post('/holds', validate({ params: shopIdParamsSchema, body: holdInputSchema }), async (req, res) => {

@@ -6,7 +6,7 @@ import type { AuditAction, AuditEntity, Bin, BinInput, binInputSchema, BinUpdate
 import { shopScoped } from '../../db/tenant-repository';
 import type { Database } from '../../db/write-lock';
 import type { Clock } from '../../lib/clock';
-import { currencyOf, freeStockByPart, isoOf, listBins, listHolds, listMovements, listStock, valuationCsv, valuationReport, valueHistory, type MovementFilters, type StockListFilters } from './stock.queries';
+import { countHolds, currencyOf, freeStockByPart, isoOf, listBins, listHolds, listMovements, listStock, valuationCsv, valuationReport, valueHistory, type MovementFilters, type StockListFilters } from './stock.queries';
 import { HttpError, notFound } from '../../lib/http-error';
 import { recordAudit, type AuditActor } from '../audit/audit.service';
 import { PartEntity, type PartRow } from '../catalogue/catalogue.entity';
@@ -570,7 +570,12 @@ export function createStockService(deps: { db: Database; clock: Clock; graphOf: 
     },
     list: (shopId: string, query: StockListFilters) => listStock(db.reader, shopId, query),
     movements: (shopId: string, query: MovementFilters) => listMovements(db.reader, shopId, query),
-    holds: (shopId: string, query: { partId?: string; status: 'active' | 'released' | 'issued' }) => listHolds(db.reader, shopId, query),
+    /** One page of a status's holds, with how many there are in all. */
+    async holds(shopId: string, query: { partId?: string; status: 'active' | 'released' | 'issued'; page: number; pageSize: number }) {
+      const { page, pageSize, ...filters } = query;
+      const [holds, total] = await Promise.all([listHolds(db.reader, shopId, filters, { limit: pageSize, offset: (page - 1) * pageSize }), countHolds(db.reader, shopId, filters)]);
+      return { holds, total, page, pageSize };
+    },
 
     receive: (shopId: string, input: ReceiveStock, actor: AuditActor) => written(shopId, (m, ctx) => receiveStock(m, shopId, input, ctx), actor),
     issue: (shopId: string, input: IssueStock, actor: AuditActor) => written(shopId, (m, ctx) => issueStock(m, shopId, input, ctx), actor),

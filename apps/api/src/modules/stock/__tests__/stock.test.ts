@@ -169,6 +169,38 @@ describe('holds', () => {
     expect(await checkLedger(w.ctx.db.reader, w.shopId)).toEqual([]);
   });
 
+  it('pages the holds: active ones oldest first, closed ones newest first, with the count of all', async () => {
+    const part = await w.addPart('HD-300');
+    const bin = await w.addBin('HD-3');
+    const base = { partId: part, binId: bin, condition: 'new' };
+    await w.post('buyer', '/receipts', { ...base, quantity: 10, unitCostMinor: 100 });
+    const ids: string[] = [];
+    for (let i = 1; i <= 5; i++) {
+      w.ctx.clock.advance(60_000);
+      const hold = await w.post('mechanic', '/holds', { ...base, quantity: 1, purpose: `Job ${i}` });
+      expectStatus(hold, 201);
+      ids.push(hold.body.id);
+    }
+    const purposes = (res: { body: { holds: Array<{ purpose: string }> } }) => res.body.holds.map((h) => h.purpose);
+    const first = await w.get('viewer', `/holds?partId=${part}&pageSize=2`);
+    expect(first.body).toMatchObject({ total: 5, page: 1, pageSize: 2 });
+    expect(purposes(first)).toEqual(['Job 1', 'Job 2']);
+    expect(purposes(await w.get('viewer', `/holds?partId=${part}&pageSize=2&page=3`))).toEqual(['Job 5']);
+    expect((await w.get('viewer', `/holds?partId=${part}&pageSize=2&page=4`)).body).toMatchObject({ holds: [], total: 5 });
+
+    // Released in the order 2, 4, 1: the released list starts with the latest release.
+    for (const i of [1, 3, 0]) {
+      w.ctx.clock.advance(60_000);
+      expectStatus(await w.post('mechanic', `/holds/${ids[i]}/release`), 200);
+    }
+    const released = await w.get('viewer', `/holds?partId=${part}&status=released`);
+    expect(released.body.total).toBe(3);
+    expect(purposes(released)).toEqual(['Job 1', 'Job 4', 'Job 2']);
+    expect(purposes(await w.get('viewer', `/holds?partId=${part}`))).toEqual(['Job 3', 'Job 5']);
+    expectStatus(await w.get('viewer', `/holds?pageSize=201`), 400);
+    expectStatus(await w.get('viewer', `/holds?page=0`), 400);
+  });
+
   it('a hold for another line cannot be used to issue', async () => {
     const part = await w.addPart('HD-200');
     const bin = await w.addBin('HD-2');

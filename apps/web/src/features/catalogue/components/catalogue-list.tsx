@@ -1,5 +1,5 @@
 import type { PartListResponse } from '@tappet/contracts';
-import { Button, createColumnHelper, DataTable, EmptyState, ErrorState, LoadingState, PartNumber } from '@tappet/ui';
+import { Button, createColumnHelper, DataTable, EmptyState, ErrorState, LoadingState, PageNav, PartNumber } from '@tappet/ui';
 import { useMemo, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
@@ -89,9 +89,6 @@ export function CatalogueList({ shopId, params, filtered, onChange, onClear, emp
   const page = data?.page ?? params.page ?? 1;
   const pageSize = data?.pageSize ?? params.pageSize ?? 25;
   const total = data?.total ?? 0;
-  const pageCount = Math.max(1, Math.ceil(total / pageSize));
-  const first = total === 0 ? 0 : (page - 1) * pageSize + 1;
-  const last = Math.min(total, page * pageSize);
 
   let body: ReactNode;
   if (parts.isPending) {
@@ -131,24 +128,7 @@ export function CatalogueList({ shopId, params, filtered, onChange, onClear, emp
           // The API pages this list; the table's own "Rows x–y" line would count one page only.
           className="[&>div:last-child]:hidden"
         />
-        <nav aria-label="Pages of the catalogue" className="flex flex-wrap items-center justify-between gap-3">
-          <p className="text-ink-muted" role="status">
-            Parts {first}–{last} of {total}
-          </p>
-          {pageCount > 1 && (
-            <div className="flex items-center gap-2">
-              <Button variant="secondary" size="sm" disabled={page <= 1} onClick={() => onChange({ page: page - 1 })}>
-                Previous page
-              </Button>
-              <span className="tabular">
-                Page {page} of {pageCount}
-              </span>
-              <Button variant="secondary" size="sm" disabled={page >= pageCount} onClick={() => onChange({ page: page + 1 })}>
-                Next page
-              </Button>
-            </div>
-          )}
-        </nav>
+        <PageNav label="Pages of the catalogue" noun="Parts" page={page} pageSize={pageSize} total={total} onPage={(p) => onChange({ page: p })} />
       </div>
     );
   }

@@ -1,7 +1,7 @@
 import type { Hold } from '@tappet/contracts';
-import { Button, ConfirmDialog, createColumnHelper, DataTable, EmptyState, ErrorState, LoadingState, Num, PartNumber, useToast } from '@tappet/ui';
+import { Button, ConfirmDialog, createColumnHelper, DataTable, EmptyState, ErrorState, LoadingState, Num, PageNav, PartNumber, useToast } from '@tappet/ui';
 import { useMemo, useState } from 'react';
-import { Link } from 'react-router-dom';
+import { Link, useSearchParams } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { useCan } from '../../../lib/ability';
 import { errorMessage } from '../../../lib/api-client';
@@ -18,7 +18,10 @@ const column = createColumnHelper<Hold>();
  * holds (and the shop's currency) the caller already has, e.g. one part's, so nothing is fetched.
  */
 export function HoldsList({ shopId, given }: { shopId: string; given?: { holds: Hold[]; currency: string } }) {
-  const query = useHolds(shopId, 'active', { enabled: !given });
+  // The held stock screen pages through the API, the page kept in the address.
+  const [search, setSearch] = useSearchParams();
+  const page = Math.max(1, Number(search.get('page') ?? 1) || 1);
+  const query = useHolds(shopId, 'active', { enabled: !given, page });
   const valuation = useValuation(shopId, { enabled: !given });
   const currency = given?.currency ?? valuation.data?.currency ?? 'GBP';
   const canHold = useCan('hold', 'Stock', { shopId });
@@ -86,10 +89,39 @@ export function HoldsList({ shopId, given }: { shopId: string; given?: { holds: 
   }
   return (
     <>
-      {holds.length === 0 ? (
+      {holds.length === 0 && page === 1 ? (
         <EmptyState title="Nothing is held">Hold stock from the stock list or a part&apos;s page to set it aside for a job.</EmptyState>
-      ) : (
+      ) : !given && query.data && holds.length === 0 ? (
+        // Past the last page (its last hold was just issued or released, or an old link).
+        <EmptyState
+          title="No holds on this page"
+          action={
+            <Button variant="secondary" onClick={() => setSearch(new URLSearchParams())}>
+              Show the first page
+            </Button>
+          }
+        >
+          {query.data.total} {query.data.total === 1 ? 'hold is' : 'holds are'} active in all.
+        </EmptyState>
+      ) : given || !query.data ? (
         <DataTable caption="Stock held" columns={columns} data={holds} getRowId={(h) => h.id} />
+      ) : (
+        <div className="flex flex-col gap-3" aria-busy={query.isPlaceholderData || undefined}>
+          {/* The API pages this list; the table's own row count would count one page only. */}
+          <DataTable caption="Stock held, longest held first" columns={columns} data={holds} getRowId={(h) => h.id} pageSize={query.data.pageSize} className="[&>div:last-child]:hidden" />
+          <PageNav
+            label="Pages of held stock"
+            noun="Holds"
+            page={page}
+            pageSize={query.data.pageSize}
+            total={query.data.total}
+            onPage={(p) => {
+              const next = new URLSearchParams(search);
+              next.set('page', String(p));
+              setSearch(next);
+            }}
+          />
+        </div>
       )}
       <ConfirmDialog
         open={releasing !== null}

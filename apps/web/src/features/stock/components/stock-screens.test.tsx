@@ -101,3 +101,57 @@ describe('the stock screen', () => {
     expect(within(table).queryAllByRole('button', { name: /Issue|Hold|More/ })).toEqual([]);
   });
 });
+
+describe('the held stock screen', () => {
+  const hold = (n: number) => ({
+    id: `dddddddd-0000-4000-8000-${String(n).padStart(12, '0')}`,
+    partId,
+    partNumber: '70-4411',
+    partDescription: 'Footrest hanger',
+    binId: binA,
+    binCode: 'B-04',
+    condition: 'new' as const,
+    quantity: 1,
+    purpose: `Job ${n}`,
+    jobId: null,
+    status: 'active' as const,
+    createdAt: '2026-01-15T09:00:00.000Z',
+    createdByName: 'Pat Example',
+    closedAt: null,
+  });
+
+  it('pages through the API, keeps the page in the address, and says how many holds there are', async () => {
+    const user = userEvent.setup();
+    const { requests } = installStockApi({
+      [`GET /shops/${shopA}/stock/holds`]: (r) => {
+        const page = Number(new URLSearchParams(r.path.split('?')[1]).get('page'));
+        const rows = Array.from({ length: page === 1 ? 50 : 10 }, (_, i) => hold((page - 1) * 50 + i + 1));
+        return { body: { holds: rows, total: 60, page, pageSize: 50 } };
+      },
+    });
+    const { router } = renderApp(`/shops/${shopA}/stock/holds`);
+    const nav = await screen.findByRole('navigation', { name: 'Pages of held stock' }, slow);
+    expect(within(nav).getByRole('status')).toHaveTextContent('Holds 1–50 of 60');
+    expect(requests.some((r) => r.path === `/shops/${shopA}/stock/holds?status=active&page=1&pageSize=50`)).toBe(true);
+    await user.click(within(nav).getByRole('button', { name: 'Next page' }));
+    await vi.waitFor(() => expect(within(nav).getByRole('status')).toHaveTextContent('Holds 51–60 of 60'));
+    expect(router.state.location.search).toBe('?page=2');
+    expect(screen.getByRole('table', { name: 'Stock held, longest held first' })).toHaveTextContent('Job 60');
+  });
+
+  it('offers the first page when the page asked for has no holds left', async () => {
+    const user = userEvent.setup();
+    installStockApi({
+      [`GET /shops/${shopA}/stock/holds`]: (r) => {
+        const page = Number(new URLSearchParams(r.path.split('?')[1]).get('page'));
+        return { body: { holds: page === 1 ? [hold(1)] : [], total: 1, page, pageSize: 50 } };
+      },
+    });
+    const { router } = renderApp(`/shops/${shopA}/stock/holds?page=3`);
+    expect(await screen.findByText('No holds on this page', undefined, slow)).toBeInTheDocument();
+    expect(screen.getByText('1 hold is active in all.')).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Show the first page' }));
+    await vi.waitFor(() => expect(router.state.location.search).toBe(''));
+    expect(await screen.findByRole('table', { name: 'Stock held, longest held first' })).toHaveTextContent('Job 1');
+  });
+});

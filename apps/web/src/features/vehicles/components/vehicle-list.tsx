@@ -1,5 +1,5 @@
 import { vehicleStatusLabels, vehicleKinds, vehicleStatuses, type VehicleListResponse } from '@tappet/contracts';
-import { Button, createColumnHelper, DataTable, EmptyState, ErrorState, LoadingState, Num, Select, TextField } from '@tappet/ui';
+import { Button, createColumnHelper, DataTable, EmptyState, ErrorState, LoadingState, PageNav, Num, Select, TextField } from '@tappet/ui';
 import { useMemo, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
@@ -73,9 +73,6 @@ export function VehicleList({ shopId, params, filtered, onChange, onClear, empty
   const page = data?.page ?? params.page ?? 1;
   const pageSize = data?.pageSize ?? 25;
   const total = data?.total ?? 0;
-  const pageCount = Math.max(1, Math.ceil(total / pageSize));
-  const first = total === 0 ? 0 : (page - 1) * pageSize + 1;
-  const last = Math.min(total, page * pageSize);
 
   let body: ReactNode;
   if (vehicles.isPending) body = <LoadingState label="Loading vehicles…" />;
@@ -104,24 +101,7 @@ export function VehicleList({ shopId, params, filtered, onChange, onClear, empty
     body = (
       <div className="flex flex-col gap-3" aria-busy={vehicles.isPlaceholderData || undefined}>
         <DataTable caption="Vehicles in the shop" columns={columns} data={vehicles.data.items} getRowId={(row) => row.id} pageSize={pageSize} className="[&>div:last-child]:hidden" />
-        <nav aria-label="Pages of vehicles" className="flex flex-wrap items-center justify-between gap-3">
-          <p className="text-ink-muted" role="status">
-            Vehicles {first}–{last} of {total}
-          </p>
-          {pageCount > 1 && (
-            <div className="flex items-center gap-2">
-              <Button variant="secondary" size="sm" disabled={page <= 1} onClick={() => onChange({ page: page - 1 })}>
-                Previous page
-              </Button>
-              <span className="tabular">
-                Page {page} of {pageCount}
-              </span>
-              <Button variant="secondary" size="sm" disabled={page >= pageCount} onClick={() => onChange({ page: page + 1 })}>
-                Next page
-              </Button>
-            </div>
-          )}
-        </nav>
+        <PageNav label="Pages of vehicles" noun="Vehicles" page={page} pageSize={pageSize} total={total} onPage={(p) => onChange({ page: p })} />
       </div>
     );
   }
