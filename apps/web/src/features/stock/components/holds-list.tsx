@@ -31,10 +31,13 @@ export function HoldsList({ shopId, given }: { shopId: string; given?: { holds: 
   const release = useStockMutation(shopId, (s: string, holdId: string) => releaseHold(s, holdId));
   const toast = useToast();
   const holds = given?.holds ?? query.data?.holds;
+  // A page from the API keeps the API's order: sorting one page would look like sorting them all.
+  const sortable = given !== undefined;
 
   const columns = useMemo(
     () => [
       column.accessor('partNumber', {
+        enableSorting: sortable,
         header: 'Part',
         cell: (info) => (
           <Link to={paths.shop.part.getHref(shopId, info.row.original.partId)} className="text-accent underline-offset-4 hover:underline">
@@ -45,11 +48,13 @@ export function HoldsList({ shopId, given }: { shopId: string; given?: { holds: 
       // Condition under the bin and the person under the purpose: the row's actions then fit on a
       // tablet in landscape.
       column.accessor('binCode', {
+        enableSorting: sortable,
         header: 'Bin and condition',
         cell: (info) => <BinWithCondition code={info.getValue()} condition={info.row.original.condition} />,
       }),
-      column.accessor('quantity', { header: 'Held', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
+      column.accessor('quantity', { enableSorting: sortable, header: 'Held', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
       column.accessor('purpose', {
+        enableSorting: sortable,
         header: 'Held for',
         cell: (info) => (
           <>
@@ -80,7 +85,7 @@ export function HoldsList({ shopId, given }: { shopId: string; given?: { holds: 
         },
       }),
     ],
-    [shopId, canHold, canIssue],
+    [shopId, canHold, canIssue, sortable],
   );
 
   if (!holds) {
