@@ -112,12 +112,13 @@ export function HoldsList({ shopId, given }: { shopId: string; given?: { holds: 
         <DataTable caption="Stock held" columns={columns} data={holds} getRowId={(h) => h.id} />
       ) : (
         <div className="flex flex-col gap-3" aria-busy={query.isPlaceholderData || undefined}>
-          {/* The API pages this list; the table's own row count would count one page only. */}
+          {/* The API pages this list; the table's own row count would count one page only. The
+              count follows the rows shown (the page being left stays until the next arrives). */}
           <DataTable caption="Stock held, longest held first" columns={columns} data={holds} getRowId={(h) => h.id} pageSize={query.data.pageSize} className="[&>div:last-child]:hidden" />
           <PageNav
             label="Pages of held stock"
             noun="Holds"
-            page={page}
+            page={query.data.page}
             pageSize={query.data.pageSize}
             total={query.data.total}
             onPage={(p) => {

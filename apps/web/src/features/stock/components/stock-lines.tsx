@@ -1,5 +1,5 @@
 import type { StockCondition, StockLine } from '@tappet/contracts';
-import { Button, createColumnHelper, DataTable, EmptyState, ErrorState, LoadingState, MenuButton, Num, PartNumber, Select, TextField } from '@tappet/ui';
+import { Button, createColumnHelper, DataTable, EmptyState, ErrorState, LoadingState, MenuButton, Num, PageNav, PartNumber, Select, TextField } from '@tappet/ui';
 import { useMemo, useState, type FormEvent } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { paths } from '../../../config/paths';
@@ -13,7 +13,8 @@ import { BinWithCondition } from './bin-with-condition';
 import { conditionOptions } from './words';
 
 const column = createColumnHelper<StockLine>();
-const PAGE = 200;
+/** Lines a page; the API pages the list (by part number, bin, then condition). */
+const PAGE = 50;
 
 /** Stock per part and per bin: filter by number, bin or condition; act on a line with the keyboard or a tap. */
 export function StockLines({ shopId }: { shopId: string }) {
@@ -21,7 +22,8 @@ export function StockLines({ shopId }: { shopId: string }) {
   const q = params.get('q') ?? '';
   const binId = params.get('binId') ?? '';
   const condition = (params.get('condition') ?? '') as StockCondition | '';
-  const stock = useStock(shopId, { q: q || undefined, binId: binId || undefined, condition: condition || undefined, pageSize: PAGE });
+  const page = Math.max(1, Number(params.get('page') ?? 1) || 1);
+  const stock = useStock(shopId, { q: q || undefined, binId: binId || undefined, condition: condition || undefined, page, pageSize: PAGE });
   const bins = useBins(shopId);
   const currency = useValuation(shopId).data?.currency ?? 'GBP';
   const [dialog, setDialog] = useState<{ action: StockAction; preset?: StockActionPreset } | null>(null);
@@ -45,6 +47,13 @@ export function StockLines({ shopId }: { shopId: string }) {
     setParams(next, { replace: true });
   }
 
+  const goTo = (p: number) => {
+    const next = new URLSearchParams(params);
+    if (p > 1) next.set('page', String(p));
+    else next.delete('page');
+    setParams(next);
+  };
+
   const columns = useMemo(() => {
     const act = (line: StockLine, action: StockAction, label: string) => (
       <Button
@@ -60,6 +69,7 @@ export function StockLines({ shopId }: { shopId: string }) {
       // Number with its description beneath, and bin with its condition beneath: the row's
       // actions then fit beside the figures on a tablet in landscape.
       column.accessor('partNumber', {
+        enableSorting: false,
         header: 'Part',
         cell: (info) => (
           <>
@@ -71,12 +81,13 @@ export function StockLines({ shopId }: { shopId: string }) {
         ),
       }),
       column.accessor('binCode', {
+        enableSorting: false,
         header: 'Bin and condition',
         cell: (info) => <BinWithCondition code={info.getValue()} condition={info.row.original.condition} />,
       }),
-      column.accessor('onHand', { header: 'On hand', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
-      column.accessor('held', { header: 'Held', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
-      column.accessor('free', { header: 'Free', meta: { numeric: true }, cell: (info) => <Num className="font-bold">{info.getValue()}</Num> }),
+      column.accessor('onHand', { enableSorting: false, header: 'On hand', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
+      column.accessor('held', { enableSorting: false, header: 'Held', meta: { numeric: true }, cell: (info) => <Num>{info.getValue()}</Num> }),
+      column.accessor('free', { enableSorting: false, header: 'Free', meta: { numeric: true }, cell: (info) => <Num className="font-bold">{info.getValue()}</Num> }),
       column.display({
         id: 'actions',
         header: 'Actions',
@@ -123,17 +134,19 @@ export function StockLines({ shopId }: { shopId: string }) {
         <LoadingState label="Loading stock…" />
       ) : stock.isError ? (
         <ErrorState message={errorMessage(stock.error)} onRetry={() => void stock.refetch()} />
+      ) : stock.data.lines.length === 0 && stock.data.total > 0 ? (
+        // Past the last page: an old link, or its last line was just issued.
+        <EmptyState title="No stock lines on this page" action={<Button variant="secondary" onClick={() => goTo(1)}>Show the first page</Button>}>
+          {stock.data.total} {stock.data.total === 1 ? 'line matches' : 'lines match'} in all.
+        </EmptyState>
       ) : stock.data.lines.length === 0 ? (
         <EmptyState title={q || binId || condition ? 'Nothing on hand matches' : 'No stock yet'}>{can.receive ? 'Receive stock into a bin to see it here.' : 'Stock appears here once it is received.'}</EmptyState>
       ) : (
-        <>
-          <DataTable caption="Stock per part, bin and condition" columns={columns} data={stock.data.lines} pageSize={50} getRowId={(l) => `${l.partId}|${l.binId}|${l.condition}`} />
-          {stock.data.total > stock.data.lines.length && (
-            <p className="mt-2 text-ink-muted">
-              Showing the first {stock.data.lines.length} of {stock.data.total} lines: narrow the search to see the rest.
-            </p>
-          )}
-        </>
+        <div className="flex flex-col gap-3" aria-busy={stock.isPlaceholderData || undefined}>
+          {/* The API pages and orders this list; the table's own row count would count one page only. */}
+          <DataTable caption="Stock per part, bin and condition" columns={columns} data={stock.data.lines} pageSize={PAGE} getRowId={(l) => `${l.partId}|${l.binId}|${l.condition}`} className="[&>div:last-child]:hidden" />
+          <PageNav label="Pages of stock lines" noun="Lines" page={stock.data.page} pageSize={stock.data.pageSize} total={stock.data.total} onPage={goTo} />
+        </div>
       )}
       <StockActionDialog shopId={shopId} action={dialog?.action ?? null} preset={dialog?.preset} currency={currency} onClose={() => setDialog(null)} />
     </>

@@ -159,3 +159,26 @@ describe('the held stock screen', () => {
     expect(await screen.findByRole('table', { name: 'Stock held, longest held first' })).toHaveTextContent('Job 1');
   });
 });
+
+describe('the stock list, paged by the API', () => {
+  it('asks for 50 lines a page, turns pages in the address, and keeps the API’s order', async () => {
+    const user = userEvent.setup();
+    const line = (n: number) => ({ ...lines.lines[0]!, partId: `aaaaaaaa-0000-4000-8000-${String(n).padStart(12, '0')}`, partNumber: `70-${4400 + n}` });
+    const { requests } = installStockApi({
+      [`GET /shops/${shopA}/stock`]: (r) => {
+        const page = Number(new URLSearchParams(r.path.split('?')[1]).get('page'));
+        return { body: { lines: Array.from({ length: page === 1 ? 50 : 5 }, (_, i) => line((page - 1) * 50 + i + 1)), total: 55, page, pageSize: 50 } };
+      },
+    });
+    const { router } = renderApp(`/shops/${shopA}/stock`);
+    const nav = await screen.findByRole('navigation', { name: 'Pages of stock lines' }, slow);
+    expect(within(nav).getByRole('status')).toHaveTextContent('Lines 1–50 of 55');
+    expect(requests.some((r) => r.path === `/shops/${shopA}/stock?page=1&pageSize=50`)).toBe(true);
+    const table = screen.getByRole('table', { name: 'Stock per part, bin and condition' });
+    expect(within(table).getAllByRole('columnheader').every((h) => !h.hasAttribute('aria-sort'))).toBe(true);
+    await user.click(within(nav).getByRole('button', { name: 'Next page' }));
+    await vi.waitFor(() => expect(within(nav).getByRole('status')).toHaveTextContent('Lines 51–55 of 55'));
+    expect(router.state.location.search).toBe('?page=2');
+    expect(table).toHaveTextContent('70-4455');
+  });
+});
