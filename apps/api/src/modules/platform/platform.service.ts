@@ -69,19 +69,22 @@ export function createPlatformService(deps: { db: Database; clock: Clock; billin
     },
 
     /**
-     * Onboards a shop: creates it on the chosen plan with a fresh trial, then invites its owner
-     * by e-mail (the invitation is sent after the commit, like every invitation).
+     * Onboards a shop: creates it on the chosen plan with a fresh trial and its owner's
+     * invitation in one write, so a shop never exists without the way in for its owner (a failed
+     * invitation used to leave an ownerless shop, and trying again made a second one). The
+     * e-mail goes after the commit, like every invitation. A new shop has sent nothing yet, so its
+     * invitation allowance is not checked.
      */
     async onboard(input: OnboardShopRequest, actor: AuditActor & { userId: string | null; name: string | null }): Promise<PlatformShop> {
       const now = clock.now();
-      const shop = await db.write(async (manager) => {
+      const { shop, invitation } = await db.write(async (manager) => {
         const plan = await manager.findOne(PlanEntity, { where: { id: input.planId, isActive: true } });
         if (!plan) throw notFound('No such plan.');
         const created = await insertShop(manager, { name: input.name, at: now, actor });
         await saveBilling(manager, { ...defaultBilling(created.id, now), planId: plan.id });
-        return created;
+        return { shop: created, invitation: await staff.inviteWithin(manager, created, { email: input.ownerEmail, role: 'owner' }, actor, now) };
       });
-      await staff.invite(shop, { email: input.ownerEmail, role: 'owner' }, actor);
+      invitation.send();
       const [row] = await this.listShops({ q: shop.slug });
       if (!row) throw notFound('No such shop.');
       return row;

@@ -76,6 +76,51 @@ export function createStaffService(deps: StaffServiceDeps) {
       .catch((err: unknown) => deps.onMailError?.(err));
   }
 
+  /**
+   * A new invitation inside the caller's write: the checks (already a member, an open invitation,
+   * a free seat), the row and its audit event. The link's token is made here, so a retried write
+   * (PostgreSQL) sends the token of the attempt that committed; send it after the commit.
+   */
+  async function createInvitation(manager: EntityManager, shop: Shop, input: CreateInvitationRequest, actor: AuditActor, now: Date): Promise<{ invitation: Invitation; token: string }> {
+    const token = newToken();
+    const invitation: Invitation = {
+      id: randomUUID(),
+      shopId: shop.id,
+      email: input.email,
+      role: input.role,
+      spendingLimitMinor: input.role === 'buyer' ? (input.spendingLimitMinor ?? null) : null,
+      tokenHash: hashToken(token),
+      invitedByUserId: actor.userId,
+      createdAt: now,
+      sentAt: now,
+      expiresAt: new Date(now.getTime() + invitationTtlMs),
+      acceptedAt: null,
+      acceptedUserId: null,
+      withdrawnAt: null,
+    };
+    const existingUser = await manager.findOne(UserEntity, { where: { email: input.email } });
+    if (existingUser) {
+      const membership = await shopScoped(manager, MembershipEntity, shop.id).findOne({ userId: existingUser.id });
+      if (membership?.isActive) throw conflict('This person is already a member of the shop.');
+      if (membership) throw conflict('This person is a deactivated member of the shop: reactivate them instead.');
+    }
+    const open = await shopScoped(manager, InvitationEntity, shop.id).findOne({ email: input.email, acceptedAt: IsNull(), withdrawnAt: IsNull() });
+    if (open) throw conflict('This address already has an open invitation: resend or withdraw it.');
+    // The plan's seats count members and open invitations alike.
+    await assertSeatAvailable(manager, shop.id, now);
+    await manager.insert(InvitationEntity, invitation);
+    await recordAudit(manager, {
+      shopId: shop.id,
+      actor,
+      action: 'invitation.created',
+      entity: 'invitation',
+      entityId: invitation.id,
+      changes: { email: { before: null, after: invitation.email }, role: { before: null, after: invitation.role }, spendingLimitMinor: { before: null, after: invitation.spendingLimitMinor } },
+      at: now,
+    });
+    return { invitation, token };
+  }
+
   /** Active owners of the shop other than `exceptUserId`. */
   async function otherActiveOwners(manager: EntityManager, shopId: string, exceptUserId: string): Promise<number> {
     return shopScoped(manager, MembershipEntity, shopId).count({ role: 'owner', isActive: true, userId: Not(exceptUserId) });
@@ -147,47 +192,19 @@ export function createStaffService(deps: StaffServiceDeps) {
     /** Invites an address with a role and e-mails the link after the commit. */
     async invite(shop: Shop, input: CreateInvitationRequest, actor: AuditActor & { userId: string | null; name: string | null }): Promise<InvitationSummary> {
       await checkSendLimit(shop.id);
-      const token = newToken();
       const now = clock.now();
-      const invitation: Invitation = {
-        id: randomUUID(),
-        shopId: shop.id,
-        email: input.email,
-        role: input.role,
-        spendingLimitMinor: input.role === 'buyer' ? (input.spendingLimitMinor ?? null) : null,
-        tokenHash: hashToken(token),
-        invitedByUserId: actor.userId,
-        createdAt: now,
-        sentAt: now,
-        expiresAt: new Date(now.getTime() + invitationTtlMs),
-        acceptedAt: null,
-        acceptedUserId: null,
-        withdrawnAt: null,
-      };
-      await db.write(async (manager) => {
-        const existingUser = await manager.findOne(UserEntity, { where: { email: input.email } });
-        if (existingUser) {
-          const membership = await shopScoped(manager, MembershipEntity, shop.id).findOne({ userId: existingUser.id });
-          if (membership?.isActive) throw conflict('This person is already a member of the shop.');
-          if (membership) throw conflict('This person is a deactivated member of the shop: reactivate them instead.');
-        }
-        const open = await shopScoped(manager, InvitationEntity, shop.id).findOne({ email: input.email, acceptedAt: IsNull(), withdrawnAt: IsNull() });
-        if (open) throw conflict('This address already has an open invitation: resend or withdraw it.');
-        // The plan's seats count members and open invitations alike.
-        await assertSeatAvailable(manager, shop.id, now);
-        await manager.insert(InvitationEntity, invitation);
-        await recordAudit(manager, {
-          shopId: shop.id,
-          actor,
-          action: 'invitation.created',
-          entity: 'invitation',
-          entityId: invitation.id,
-          changes: { email: { before: null, after: invitation.email }, role: { before: null, after: invitation.role }, spendingLimitMinor: { before: null, after: invitation.spendingLimitMinor } },
-          at: now,
-        });
-      });
+      const { invitation, token } = await db.write((manager) => createInvitation(manager, shop, input, actor, now));
       sendInvitationMail(shop, invitation, token, actor.name);
       return toInvitationSummary(invitation, actor.name);
+    },
+
+    /**
+     * An invitation made inside the caller's own write (a shop onboarded with its owner's
+     * invitation in one transaction). `send` mails the link: call it after the commit.
+     */
+    async inviteWithin(manager: EntityManager, shop: Shop, input: CreateInvitationRequest, actor: AuditActor & { userId: string | null; name: string | null }, now: Date) {
+      const { invitation, token } = await createInvitation(manager, shop, input, actor, now);
+      return { summary: toInvitationSummary(invitation, actor.name), send: () => sendInvitationMail(shop, invitation, token, actor.name) };
     },
 
     /** A new link for an open invitation; the old link stops working and the 7 days start again. */

@@ -6,6 +6,10 @@ import { createTestContext, csrf, seedShop, signedInAgent, type TestContext } fr
 import { createShopWithUsers } from '../../test-support/test-support.service';
 import { AuditEventEntity } from '../../audit/audit.entity';
 import { addPlan, putOnPlan } from '../../billing/__tests__/billing-world';
+import type { BillingService } from '../../billing/billing.service';
+import { ShopEntity } from '../../shops/shops.entity';
+import type { StaffService } from '../../staff/staff.service';
+import { createPlatformService } from '../platform.service';
 
 let ctx: TestContext;
 let admin: Awaited<ReturnType<typeof signedInAgent>>;
@@ -76,6 +80,18 @@ describe('shops', () => {
     const res = await admin.post('/api/platform/shops').set(csrf).send({ name: 'Nowhere Cycles', planId: '00000000-0000-4000-8000-000000000000', ownerEmail: 'a@nowhere.test' });
     expect(res.status).toBe(404);
     expect((await admin.get('/api/platform/shops')).body.shops.length).toBe(before);
+  });
+
+  it('creates no shop when its owner’s invitation fails: the shop and the invitation are one write', async () => {
+    // Nothing refuses a new shop's first invitation in practice (a plan has at least one seat), so
+    // the failure is staged: any error while inviting must take the new shop back with it.
+    const plan = await addPlan(ctx);
+    const failing = { inviteWithin: () => Promise.reject(new Error('invitation refused')) } as unknown as StaffService;
+    const platform = createPlatformService({ db: ctx.db, clock: ctx.clock, billing: {} as BillingService, staff: failing });
+    const before = await ctx.db.reader.count(ShopEntity);
+    await expect(platform.onboard({ name: 'Seatless Cycles', planId: plan.id, ownerEmail: 'owner@seatless-cycles.test' }, { userId: null, name: null })).rejects.toThrow('invitation refused');
+    expect(await ctx.db.reader.count(ShopEntity)).toBe(before);
+    expect((await admin.get('/api/platform/shops?q=seatless')).body.shops).toEqual([]);
   });
 
   it('suspends a shop by hand (read-only, naming the reason, audited) and reactivates it', async () => {
