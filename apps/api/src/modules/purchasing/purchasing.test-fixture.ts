@@ -70,6 +70,10 @@ export async function seedPurchasingFixture(db: Database, shopId: string, spare 
   let binId = '';
 
   await db.write(async (manager) => {
+    // A retried write (PostgreSQL) runs again from here: keep only the ids of the attempt that commits.
+    for (const list of Object.values(orders)) list.length = 0;
+    lines.clear();
+    returns.length = 0;
     await manager.insert(PartEntity, [main, ...listed, ...unlisted]);
     await manager.insert(SupplierEntity, supplier);
     await manager.insert(ListingEntity, [mainListing, ...spareListings]);
