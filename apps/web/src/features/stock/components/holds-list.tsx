@@ -123,7 +123,8 @@ export function HoldsList({ shopId, given }: { shopId: string; given?: { holds: 
             total={query.data.total}
             onPage={(p) => {
               const next = new URLSearchParams(search);
-              next.set('page', String(p));
+              if (p > 1) next.set('page', String(p));
+              else next.delete('page');
               setSearch(next);
             }}
           />
