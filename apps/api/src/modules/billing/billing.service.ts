@@ -1,4 +1,4 @@
-import { randomUUID } from 'node:crypto';
+import { createHash, randomUUID } from 'node:crypto';
 import type Stripe from 'stripe';
 import type { EntityManager } from 'typeorm';
 import type { BillingOverview, BillingStatus, CreatePlanRequest, PlanView, UpdatePlanRequest } from '@tappet/contracts';
@@ -264,7 +264,11 @@ export function createBillingService(deps: BillingServiceDeps) {
       // Network calls happen outside the write lock; only their results are stored.
       let customerId = record.stripeCustomerId;
       if (!customerId) {
-        const customer = await stripe.customers.create({ name: shop.name, metadata: { shopId: shop.id } });
+        // One customer per shop: a second checkout started before the first stored its customer
+        // (a double click, two owners) gets the same customer back from Stripe instead of a new
+        // one. The name is in the key because Stripe refuses a key reused with other parameters.
+        const idempotencyKey = `tappet-customer-${shop.id}-${createHash('sha256').update(shop.name).digest('hex').slice(0, 16)}`;
+        const customer = await stripe.customers.create({ name: shop.name, metadata: { shopId: shop.id } }, { idempotencyKey });
         customerId = customer.id;
       }
       const price = await priceFor(plan);

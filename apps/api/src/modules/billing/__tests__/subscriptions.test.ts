@@ -69,6 +69,19 @@ describe('checkout', () => {
     expect(again.status).toBe(409);
   });
 
+  it('makes one Stripe customer for a shop when two checkouts start at once (a double click)', async () => {
+    const plan = await addPlan(w.ctx);
+    const shop = await seedShop(w.ctx, ['owner']);
+    await putOnPlan(w.ctx, shop.shop.id, plan.id);
+    const owner = await signedInAgent(w.ctx.app, shop.byRole.owner.email, shop.password);
+    const both = await Promise.all([1, 2].map(() => owner.post(`/api/shops/${shop.shop.id}/billing/checkout`).set(csrf).send({ planId: plan.id })));
+    expect(both.some((r) => r.status === 200), JSON.stringify(both.map((r) => r.body))).toBe(true);
+    const customers = [...w.fake.store.customers.values()].filter((c) => c.metadata['shopId'] === shop.shop.id);
+    expect(customers).toHaveLength(1);
+    const record = await w.ctx.db.reader.findOneByOrFail(ShopBillingEntity, { shopId: shop.shop.id });
+    expect(record.stripeCustomerId).toBe(customers[0]!.id);
+  });
+
   it('refuses an unknown plan and non-owners', async () => {
     const { shopId, owner, buyer, plan } = await subscribedShop();
     expect((await owner.post(`/api/shops/${shopId}/billing/checkout`).set(csrf).send({ planId: '00000000-0000-4000-8000-000000000000' })).status).toBe(404);
